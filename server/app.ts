@@ -1,0 +1,118 @@
+import { randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import express, { Router } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import { toNodeHandler } from 'better-auth/node';
+import type { Db } from './db/client.ts';
+import { CLIENT_IP_HEADER, type Auth } from './auth.ts';
+import type { SearchClient } from './search/client.ts';
+import { Api } from './http/route.ts';
+import { sessionMiddleware } from './middleware/session.ts';
+import { originCheck } from './middleware/origin-check.ts';
+import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
+import { createUserService, type UserService } from './services/users.ts';
+import { createCatalogueService, type CatalogueService } from './services/catalogue.ts';
+import { createMediaService, type MediaService } from './services/media.ts';
+import { createPartsIndex, type PartsIndex } from './search/parts-index.ts';
+import type { FileStore } from './storage/files.ts';
+import { systemRoutes } from './routes/system.ts';
+import { userRoutes } from './routes/users.ts';
+import { partRoutes } from './routes/parts.ts';
+
+export interface AppOptions {
+  db: Db;
+  auth: Auth;
+  search: SearchClient;
+  files: FileStore;
+  logger: Logger;
+  trustedOrigins: string[];
+  /** Built client to serve; omitted in API-only tests. */
+  clientDir?: string;
+}
+
+export interface AppDeps extends AppOptions {
+  users: UserService;
+  partsIndex: PartsIndex;
+  catalogue: CatalogueService;
+  media: MediaService;
+}
+
+/** Services built from the injected side effects; shared by the app, CLI tasks and benchmarks. */
+export function createServices(options: AppOptions): AppDeps {
+  const partsIndex = createPartsIndex(options.search);
+  return {
+    ...options,
+    partsIndex,
+    users: createUserService(options),
+    catalogue: createCatalogueService({ db: options.db, partsIndex }),
+    media: createMediaService({ db: options.db, files: options.files }),
+  };
+}
+
+export function createApp(options: AppOptions) {
+  const deps = createServices(options);
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    pinoHttp({
+      logger: options.logger,
+      genReqId: (req, res) => {
+        const id = randomUUID();
+        res.setHeader('x-request-id', id);
+        return id;
+      },
+      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+    }),
+  );
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null },
+      },
+      strictTransportSecurity: false,
+    }),
+  );
+
+  // better-auth reads the raw body itself, so it is mounted before the JSON parser.
+  // Our origin check runs first: the library only checks origins when cookies are present,
+  // which would let another site sign a visitor in to an account of its choosing.
+  app.use('/api/auth', originCheck(options.trustedOrigins), (req, _res, next) => {
+    req.headers[CLIENT_IP_HEADER] = req.socket.remoteAddress ?? 'unknown';
+    next();
+  });
+  app.all('/api/auth/{*any}', toNodeHandler(options.auth));
+  app.use('/api/auth', errorHandler);
+
+  const router = Router();
+  const api = new Api(router);
+  router.use(originCheck(options.trustedOrigins));
+  router.use(express.json({ limit: '1mb' }));
+  router.use(sessionMiddleware(options.auth));
+  systemRoutes(api, deps);
+  userRoutes(api, deps);
+  partRoutes(api, deps);
+  router.get('/openapi.json', (_req, res) => {
+    res.json(api.document());
+  });
+  router.use(apiNotFound);
+  router.use(errorHandler);
+  app.use('/api', router);
+
+  if (options.clientDir && existsSync(path.join(options.clientDir, 'index.html'))) {
+    const dir = options.clientDir;
+    app.use('/assets', express.static(path.join(dir, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
+    app.use(express.static(dir, { index: false, maxAge: '1h' }));
+    app.get('/{*any}', (_req, res) => {
+      res.setHeader('cache-control', 'no-cache');
+      res.sendFile(path.join(dir, 'index.html'));
+    });
+  }
+  app.use(errorHandler);
+  return app;
+}

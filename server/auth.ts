@@ -1,0 +1,66 @@
+import { betterAuth } from 'better-auth';
+import { drizzleAdapter } from 'better-auth/adapters/drizzle';
+import { admin } from 'better-auth/plugins';
+import { createAccessControl } from 'better-auth/plugins/access';
+import { adminAc, defaultStatements } from 'better-auth/plugins/admin/access';
+import type { Db } from './db/client.ts';
+import * as schema from './db/schema/index.ts';
+
+/** The header our own middleware sets from the socket address, so rate limits key on the real client. */
+export const CLIENT_IP_HEADER = 'x-stackyard-client-ip';
+
+const ac = createAccessControl(defaultStatements);
+const noAdminPowers = ac.newRole({ user: [], session: [] });
+const roles = {
+  admin: ac.newRole({ ...adminAc.statements }),
+  purchasing: noAdminPowers,
+  warehouse: noAdminPowers,
+  sales: noAdminPowers,
+  installer: noAdminPowers,
+};
+
+export interface AuthOptions {
+  db: Db;
+  baseURL: string;
+  secret: string;
+  trustedOrigins: string[];
+  signInLimitPerMinute: number;
+}
+
+export function createAuth({ db, baseURL, secret, trustedOrigins, signInLimitPerMinute }: AuthOptions) {
+  return betterAuth({
+    appName: 'Stackyard',
+    baseURL,
+    basePath: '/api/auth',
+    secret,
+    trustedOrigins,
+    database: drizzleAdapter(db, {
+      provider: 'pg',
+      schema: {
+        user: schema.user,
+        session: schema.session,
+        account: schema.account,
+        verification: schema.verification,
+        rateLimit: schema.rateLimit,
+      },
+    }),
+    emailAndPassword: { enabled: true, disableSignUp: true, minPasswordLength: 10, maxPasswordLength: 128 },
+    user: { additionalFields: { companyId: { type: 'string', required: false, input: false } } },
+    session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24 },
+    rateLimit: {
+      enabled: true,
+      storage: 'database',
+      window: 60,
+      max: 600,
+      customRules: { '/sign-in/email': { window: 60, max: signInLimitPerMinute } },
+    },
+    advanced: {
+      useSecureCookies: baseURL.startsWith('https://'),
+      ipAddress: { ipAddressHeaders: [CLIENT_IP_HEADER] },
+    },
+    telemetry: { enabled: false },
+    plugins: [admin({ ac, roles, defaultRole: 'installer', adminRoles: ['admin'] })],
+  });
+}
+
+export type Auth = ReturnType<typeof createAuth>;

@@ -1,0 +1,26 @@
+import path from 'node:path';
+import { pino } from 'pino';
+import type { Env } from './env.ts';
+import { createDb } from './db/client.ts';
+import { createAuth } from './auth.ts';
+import { createSearchClient } from './search/client.ts';
+import { localSecret } from './local-secret.ts';
+import type { AppOptions } from './app.ts';
+import { createLocalFileStore } from './storage/files.ts';
+
+/** Everything createApp needs, built from the environment (server, CLI tasks and benchmarks share it). */
+export function buildContext(env: Env): AppOptions {
+  const logger = pino({ level: env.LOG_LEVEL });
+  const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST === '0.0.0.0' ? '127.0.0.1' : env.HOST}:${env.PORT}`;
+  const trustedOrigins = [...new Set([publicUrl, `http://localhost:${env.PORT}`, `http://127.0.0.1:${env.PORT}`])];
+  const db = createDb(env.DATABASE_URL);
+  const auth = createAuth({
+    db,
+    baseURL: publicUrl,
+    secret: env.AUTH_SECRET ?? localSecret(env.DATA_DIR),
+    trustedOrigins,
+    signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
+  });
+  const search = createSearchClient({ host: env.MEILI_HOST ?? 'http://127.0.0.1:7701', apiKey: env.MEILI_API_KEY });
+  return { db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
+}

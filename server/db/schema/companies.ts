@@ -1,0 +1,29 @@
+import { sql } from 'drizzle-orm';
+import { check, jsonb, numeric, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+/** The wholesaler itself and its customer accounts (installer companies). */
+export const companies = pgTable(
+  'companies',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    name: text().notNull().unique(),
+    kind: text({ enum: ['wholesaler', 'installer'] }).notNull(),
+    abn: text(),
+    accountType: text({ enum: ['trade', 'cash'] }).notNull().default('trade'),
+    tierDiscountPct: numeric({ precision: 5, scale: 2 }).notNull().default('0'),
+    suburb: text(),
+    postcode: text(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    check('companies_kind_check', sql`${t.kind} in ('wholesaler', 'installer')`),
+    check('companies_discount_range', sql`${t.tierDiscountPct} >= 0 and ${t.tierDiscountPct} < 100`),
+  ],
+);
+
+/** Key/value settings (tax, currency, label and seed markers); values are validated where they are read. */
+export const settings = pgTable('settings', {
+  key: text().primaryKey(),
+  value: jsonb().notNull(),
+  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});

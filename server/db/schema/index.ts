@@ -1,0 +1,4 @@
+export * from './auth.ts';
+export * from './companies.ts';
+export * from './catalogue.ts';
+export * from './stock.ts';

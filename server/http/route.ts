@@ -1,0 +1,112 @@
+import type { Request, Response, Router, RequestHandler } from 'express';
+import { z, type ZodType } from 'zod';
+import { OpenAPIRegistry, OpenApiGeneratorV31, type RouteConfig } from '@asteasolutions/zod-to-openapi';
+import { ErrorEnvelopeSchema } from '@shared/contracts/common.ts';
+import { UnauthenticatedError, ValidationError } from '../errors.ts';
+import type { Actor } from '../policies/actor.ts';
+
+type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+export interface RouteDef<B extends ZodType, Q extends ZodType, P extends ZodType> {
+  method: Method;
+  /** Express path, e.g. /parts/:sku (relative to /api). */
+  path: string;
+  summary: string;
+  tag: string;
+  /** Public routes skip the session check; everything else answers 401 without one. */
+  public?: boolean;
+  body?: B;
+  query?: Q;
+  params?: P;
+  /** Zod schema of the success body, for the OpenAPI document. */
+  response?: ZodType;
+  status?: number;
+  /** For routes whose success is not JSON (files). */
+  produces?: string;
+  middleware?: RequestHandler[];
+}
+
+export interface RouteContext<B, Q, P> {
+  actor: Actor;
+  body: B;
+  query: Q;
+  params: P;
+  req: Request;
+  res: Response;
+}
+
+/** Collects every route's contract so /api/openapi.json can never fall behind the routes. */
+export class Api {
+  readonly registry = new OpenAPIRegistry();
+
+  constructor(readonly router: Router) {}
+
+  route<B extends ZodType = ZodType<undefined>, Q extends ZodType = ZodType<undefined>, P extends ZodType = ZodType<undefined>>(
+    def: RouteDef<B, Q, P>,
+    handler: (ctx: RouteContext<z.output<B>, z.output<Q>, z.output<P>>) => Promise<unknown> | unknown,
+  ) {
+    this.register(def);
+    const run: RequestHandler = async (req, res) => {
+      const actor = req.actor;
+      if (!def.public && !actor) throw new UnauthenticatedError();
+      const body = parse(def.body, req.body, 'body');
+      const query = parse(def.query, req.query, 'query');
+      const params = parse(def.params, req.params, 'path');
+      const result = await handler({ actor: actor as Actor, body, query, params, req, res } as never);
+      if (!res.headersSent) res.status(def.status ?? 200).json(result);
+    };
+    this.router[def.method](def.path, ...(def.middleware ?? []), run);
+  }
+
+  private register(def: RouteDef<ZodType, ZodType, ZodType>) {
+    const errors = (description: string) => ({
+      description,
+      content: { 'application/json': { schema: ErrorEnvelopeSchema } },
+    });
+    const responses: RouteConfig['responses'] = {
+      [def.status ?? 200]: def.produces
+        ? { description: 'OK', content: { [def.produces]: { schema: z.string() } } }
+        : { description: 'OK', content: def.response ? { 'application/json': { schema: def.response } } : undefined },
+      400: errors('Invalid input'),
+    };
+    if (!def.public) {
+      responses[401] = errors('Not signed in');
+      responses[403] = errors('Role not allowed');
+    }
+    this.registry.registerPath({
+      method: def.method,
+      path: `/api${def.path.replace(/:(\w+)/g, '{$1}')}`,
+      summary: def.summary,
+      tags: [def.tag],
+      request: {
+        body: def.body ? { content: { 'application/json': { schema: def.body } } } : undefined,
+        query: def.query as never,
+        params: def.params as never,
+      },
+      responses,
+    });
+  }
+
+  document() {
+    return new OpenApiGeneratorV31(this.registry.definitions).generateDocument({
+      openapi: '3.1.0',
+      info: { title: 'Stackyard API', version: '1.0.0', description: 'Parts, kits and stock for battery storage installs.' },
+      servers: [{ url: '/' }],
+    });
+  }
+}
+
+function parse(schema: ZodType | undefined, value: unknown, where: string) {
+  if (!schema) return undefined;
+  const result = schema.safeParse(value ?? {});
+  if (result.success) return result.data;
+  throw new ValidationError(
+    `Some ${where} fields are not valid: ${result.error.issues.map((i) => describeIssue(i)).join('; ')}`,
+    { fields: result.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message })) },
+  );
+}
+
+function describeIssue(issue: z.core.$ZodIssue) {
+  const at = issue.path.join('.');
+  return at ? `${at}: ${issue.message}` : issue.message;
+}

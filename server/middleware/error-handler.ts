@@ -1,0 +1,37 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { AppError } from '../errors.ts';
+
+/** The only place that writes error responses: `{ error: { code, message, details? }, requestId }`. */
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  const requestId = req.id ?? 'unknown';
+  const known = toAppError(err);
+  if (!known) {
+    req.log?.error({ err }, 'unhandled error');
+    res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. Try again; if it keeps happening, quote the request id.' }, requestId });
+    return;
+  }
+  if (known.status >= 500) req.log?.error({ err }, known.message);
+  res.status(known.status).json({
+    error: { code: known.code, message: known.message, ...(known.details === undefined ? {} : { details: known.details }) },
+    requestId,
+  });
+};
+
+/** Errors raised by Express's own body parsers and by the database, translated for clients. */
+function toAppError(err: unknown): AppError | null {
+  if (err instanceof AppError) return err;
+  const e = err as { type?: string; status?: number; code?: string; cause?: { code?: string } };
+  if (e?.type === 'entity.parse.failed') return new AppError(400, 'malformed_json', 'The request body is not valid JSON.');
+  if (e?.type === 'entity.too.large') return new AppError(413, 'body_too_large', 'The request body is too large.');
+  if (e?.type === 'encoding.unsupported' || e?.type === 'charset.unsupported')
+    return new AppError(415, 'unsupported_encoding', 'Send the body as UTF-8 JSON.');
+  if (e?.status && e.status >= 400 && e.status < 500) return new AppError(e.status, 'bad_request', 'The request could not be read.');
+  const pgCode = e?.cause?.code ?? e?.code;
+  if (pgCode === 'ECONNREFUSED' || pgCode === '57P01' || pgCode === '57P03' || pgCode === '08006')
+    return new AppError(503, 'database_unavailable', 'The database is not reachable right now. Try again in a moment.');
+  return null;
+}
+
+export const apiNotFound: RequestHandler = (req, res) => {
+  res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}.` }, requestId: req.id });
+};

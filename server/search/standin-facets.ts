@@ -1,0 +1,164 @@
+// Per-attribute value maps for filterable attributes: value → internal ids of the documents
+// holding it. Filters and facet counts read these instead of scanning documents on every search.
+//
+// Sets of documents are passed around as byte maps (DocBits) indexed by internal document id:
+// AND/OR/NOT over 50,000 documents are then plain loops, far cheaper than Set operations.
+
+import { normalizeText, valuesAt, type Json, type Leaf } from './standin-text.ts';
+
+export type DocBits = Uint8Array;
+
+export function bitsFromIds(ids: Iterable<number>, size: number): DocBits {
+  const bits = new Uint8Array(size);
+  for (const id of ids) bits[id] = 1;
+  return bits;
+}
+
+export function parseNumber(token: string): number | undefined {
+  const value = Number(token);
+  return token.trim() !== '' && Number.isFinite(value) ? value : undefined;
+}
+
+// Meilisearch compares facet strings case- and accent-insensitively; numbers and booleans
+// match their written form, so `price = 10` and `inStock = true` work.
+function facetKey(leaf: Leaf): string {
+  return typeof leaf === 'string' ? normalizeText(leaf) : String(leaf);
+}
+
+function addId<K>(map: Map<K, Set<number>>, key: K, id: number): boolean {
+  const ids = map.get(key);
+  if (ids) {
+    ids.add(id);
+    return false;
+  }
+  map.set(key, new Set([id]));
+  return true;
+}
+
+function removeId<K>(map: Map<K, Set<number>>, key: K, id: number): boolean {
+  const ids = map.get(key);
+  if (!ids?.delete(id) || ids.size > 0) return false;
+  map.delete(key);
+  return true;
+}
+
+type FacetKey = { key: string; number: number | undefined };
+
+// Facet values in alphabetical order, numbers in numeric order ahead of strings.
+function compareFacetKeys(a: FacetKey, b: FacetKey): number {
+  if (a.number !== undefined && b.number !== undefined) return a.number - b.number;
+  if (a.number !== undefined || b.number !== undefined) return a.number !== undefined ? -1 : 1;
+  return a.key < b.key ? -1 : a.key > b.key ? 1 : 0;
+}
+
+function hasSelected(ids: Set<number>, selected: DocBits): boolean {
+  for (const id of ids) if (selected[id]) return true;
+  return false;
+}
+
+export class FacetField {
+  /** Documents where the attribute exists, for EXISTS. */
+  readonly present = new Set<number>();
+  readonly #idsByKey = new Map<string, Set<number>>();
+  /** First original spelling of each value, which facetDistribution reports. */
+  readonly #labels = new Map<string, string>();
+  readonly #idsByNumber = new Map<number, Set<number>>();
+  /** #idsByNumber in numeric order; Map lookups with float keys are too slow for range scans. */
+  #sortedNumbers: [value: number, ids: Set<number>][] | null = null;
+  #sortedKeys: string[] | null = null;
+
+  constructor(readonly attribute: string) {}
+
+  add(id: number, doc: Json): void {
+    const { present, leaves } = valuesAt(doc, this.attribute);
+    if (!present) return;
+    this.present.add(id);
+    for (const leaf of leaves) {
+      const key = facetKey(leaf);
+      if (addId(this.#idsByKey, key, id)) {
+        this.#labels.set(key, String(leaf));
+        this.#sortedKeys = null;
+      }
+      if (typeof leaf === 'number' && addId(this.#idsByNumber, leaf, id)) this.#sortedNumbers = null;
+    }
+  }
+
+  remove(id: number, doc: Json): void {
+    if (!this.present.delete(id)) return;
+    for (const leaf of valuesAt(doc, this.attribute).leaves) {
+      const key = facetKey(leaf);
+      if (removeId(this.#idsByKey, key, id)) {
+        this.#labels.delete(key);
+        this.#sortedKeys = null;
+      }
+      if (typeof leaf === 'number' && removeId(this.#idsByNumber, leaf, id)) this.#sortedNumbers = null;
+    }
+  }
+
+  equalTo(token: string): Set<number>[] {
+    const keys = new Set([normalizeText(token)]);
+    const number = parseNumber(token);
+    if (number !== undefined) keys.add(String(number));
+    return [...keys].flatMap((key) => this.#idsByKey.get(key) ?? []);
+  }
+
+  /** Documents holding a number within the bounds; comparisons only apply to numbers. */
+  between(min: number, max: number, includeMin: boolean, includeMax: boolean): Set<number>[] {
+    const numbers = this.#numbers();
+    const sets: Set<number>[] = [];
+    for (let i = lowerBound(numbers, min); i < numbers.length; i++) {
+      const [value, ids] = numbers[i];
+      if (value > max || (value === max && !includeMax)) break;
+      if (value !== min || includeMin) sets.push(ids);
+    }
+    return sets;
+  }
+
+  distribution(selected: DocBits, maxValues: number, order: 'alpha' | 'count'): Record<string, number> {
+    const counted: [key: string, count: number][] = [];
+    for (const key of this.#keys()) {
+      let count = 0;
+      for (const id of this.#idsByKey.get(key)!) count += selected[id];
+      if (count === 0) continue;
+      counted.push([key, count]);
+      // In alphabetical order the first maxValues values found are the answer.
+      if (order === 'alpha' && counted.length === maxValues) break;
+    }
+    // The sort is stable, so values with equal counts stay alphabetical.
+    if (order === 'count') counted.sort((a, b) => b[1] - a[1]);
+    return Object.fromEntries(counted.slice(0, maxValues).map(([key, count]) => [this.#labels.get(key)!, count]));
+  }
+
+  /** Lowest and highest number among the selected documents, for facetStats. */
+  stats(selected: DocBits): { min: number; max: number } | undefined {
+    const numbers = this.#numbers();
+    const hit = ([, ids]: [number, Set<number>]) => hasSelected(ids, selected);
+    const min = numbers.find(hit);
+    if (min === undefined) return undefined;
+    return { min: min[0], max: numbers.findLast(hit)![0] };
+  }
+
+  #keys(): string[] {
+    this.#sortedKeys ??= [...this.#idsByKey.keys()]
+      .map((key) => ({ key, number: parseNumber(key) }))
+      .sort(compareFacetKeys)
+      .map(({ key }) => key);
+    return this.#sortedKeys;
+  }
+
+  #numbers(): [value: number, ids: Set<number>][] {
+    this.#sortedNumbers ??= [...this.#idsByNumber.entries()].sort((a, b) => a[0] - b[0]);
+    return this.#sortedNumbers;
+  }
+}
+
+function lowerBound(sorted: [value: number, ids: Set<number>][], target: number): number {
+  let low = 0;
+  let high = sorted.length;
+  while (low < high) {
+    const mid = (low + high) >> 1;
+    if (sorted[mid][0] < target) low = mid + 1;
+    else high = mid;
+  }
+  return low;
+}

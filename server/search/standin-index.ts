@@ -1,0 +1,567 @@
+// One index of the search stand-in: stored documents (kept as the original JSON objects and
+// returned as hits), primary-key rules, and search with filters, facets, sorting and ranking.
+//
+// Documents get dense internal ids so filters and facets work on byte maps. The full-text index,
+// value maps and sort ranks are derived data, built on first use and dropped when invalidated.
+
+import { MeiliError, notFilterable } from './standin-errors.ts';
+import { bitsFromIds, FacetField, type DocBits } from './standin-facets.ts';
+import { evaluateFilter, parseFilter, type FilterNode, type FilterSource } from './standin-filter.ts';
+import {
+  applySettings,
+  defaultSettings,
+  filterablePatterns,
+  matchesAttributeList,
+  type IndexSettings,
+  type SettingsPatch,
+} from './standin-settings.ts';
+import {
+  isPlainObject,
+  normalizeText,
+  TextIndex,
+  valuesAt,
+  type Json,
+  type Leaf,
+  type TextMatches,
+} from './standin-text.ts';
+
+export type SearchRequest = {
+  q?: string | null;
+  offset?: number;
+  limit?: number;
+  page?: number;
+  hitsPerPage?: number;
+  filter?: unknown;
+  sort?: string[] | null;
+  facets?: string[] | null;
+  attributesToRetrieve?: string[] | null;
+  matchingStrategy?: 'last' | 'all' | 'frequency';
+};
+
+export type DocumentsRequest = {
+  offset?: number;
+  limit?: number;
+  fields?: string[] | null;
+  filter?: unknown;
+  ids?: (string | number)[] | null;
+  sort?: string[] | null;
+};
+
+type SortCriterion = { attribute: string; descending: boolean };
+type Compare<T> = (a: T, b: T) => number;
+
+const DOCUMENT_ID = /^[A-Za-z0-9_-]{1,511}$/;
+const DEFAULT_LIMIT = 20;
+
+function now(): string {
+  return new Date().toISOString();
+}
+
+function inferPrimaryKey(doc: Json): string {
+  // Meilisearch docs, "Primary key": inference looks for exactly one attribute ending in `id`.
+  const candidates = Object.keys(doc).filter((key) => key.toLowerCase().endsWith('id'));
+  if (candidates.length === 1) return candidates[0]!;
+  const hint = 'Please specify the primary key manually using the `primaryKey` query parameter.';
+  if (candidates.length === 0) {
+    throw new MeiliError(
+      400,
+      'index_primary_key_no_candidate_found',
+      `The primary key inference failed as the engine did not find any field ending with \`id\` in its name. ${hint}`,
+    );
+  }
+  throw new MeiliError(
+    400,
+    'index_primary_key_multiple_candidates_found',
+    `The primary key inference failed as the engine found ${candidates.length} fields ending with \`id\` in their names: '${candidates[0]}' and '${candidates[1]}'. ${hint}`,
+  );
+}
+
+function documentKey(doc: Json, primaryKey: string): string {
+  const value = doc[primaryKey];
+  if (value === undefined || value === null) {
+    throw new MeiliError(
+      400,
+      'missing_document_id',
+      `Document doesn't have a \`${primaryKey}\` attribute: \`${JSON.stringify(doc).slice(0, 200)}\`.`,
+    );
+  }
+  const key = Number.isSafeInteger(value) ? String(value) : value;
+  if (typeof key !== 'string' || !DOCUMENT_ID.test(key)) {
+    throw new MeiliError(
+      400,
+      'invalid_document_id',
+      `Document identifier \`${JSON.stringify(value)}\` is invalid. A document identifier can be of type integer or string, only composed of alphanumeric characters (a-z A-Z 0-9), hyphens (-) and underscores (_), and can not be more than 511 bytes.`,
+    );
+  }
+  return key;
+}
+
+// Numbers sort before strings; strings compare in their normalized form.
+function compareSortValues(a: number | string, b: number | string): number {
+  if (typeof a === 'number' && typeof b === 'number') return a - b;
+  if (typeof a !== typeof b) return typeof a === 'number' ? -1 : 1;
+  return a < b ? -1 : a > b ? 1 : 0;
+}
+
+function sortValue(leaf: Leaf): number | string {
+  return typeof leaf === 'number' ? leaf : normalizeText(String(leaf));
+}
+
+/** Orders by a precomputed rank; documents without the attribute come last in both directions. */
+function byRank(ranks: Int32Array, descending: boolean): Compare<number> {
+  return (a, b) => {
+    const rankA = ranks[a];
+    const rankB = ranks[b];
+    if (rankA < 0 || rankB < 0) return Number(rankA < 0) - Number(rankB < 0);
+    return descending ? rankB - rankA : rankA - rankB;
+  };
+}
+
+function parseSortCriterion(expression: string, code: string): SortCriterion {
+  const match = /^(.+):(asc|desc)$/.exec(expression);
+  if (!match || match[1]!.startsWith('_geo')) {
+    throw new MeiliError(
+      400,
+      code,
+      `Invalid syntax for the sort parameter: expected expression ending by \`:asc\` or \`:desc\`, found \`${expression}\`.`,
+    );
+  }
+  return { attribute: match[1]!, descending: match[2] === 'desc' };
+}
+
+function copyPath(source: Json, target: Json, [head, ...rest]: string[]): void {
+  if (!Object.hasOwn(source, head!)) return;
+  const value = source[head!];
+  if (rest.length === 0) {
+    target[head!] = value;
+  } else if (isPlainObject(value)) {
+    const child = isPlainObject(target[head!]) ? (target[head!] as Json) : (target[head!] = {});
+    copyPath(value, child as Json, rest);
+  }
+}
+
+function pickAttributes(doc: Json, attributes: string[]): Json {
+  const picked: Json = {};
+  for (const attribute of attributes) copyPath(doc, picked, attribute.split('.'));
+  return picked;
+}
+
+/**
+ * The first `count` ids in `compare` order, sorted. A bounded max-heap keeps this O(n log count):
+ * a page needs only a few of possibly 50,000 matches.
+ */
+function firstInOrder(ids: number[], count: number, compare: Compare<number>): number[] {
+  if (count <= 0) return [];
+  const heap: number[] = []; // heap[0] is the worst id kept so far
+  const worse = (i: number, j: number) => compare(heap[i], heap[j]) > 0;
+  const swap = (i: number, j: number) => ([heap[i], heap[j]] = [heap[j], heap[i]]);
+  const siftUp = (i: number) => {
+    for (let parent = (i - 1) >> 1; i > 0 && worse(i, parent); i = parent, parent = (i - 1) >> 1) swap(i, parent);
+  };
+  const siftDown = (i: number) => {
+    for (;;) {
+      let worst = i;
+      for (const child of [2 * i + 1, 2 * i + 2]) if (child < heap.length && worse(child, worst)) worst = child;
+      if (worst === i) return;
+      swap(i, worst);
+      i = worst;
+    }
+  };
+  for (const id of ids) {
+    if (heap.length < count) {
+      heap.push(id);
+      siftUp(heap.length - 1);
+    } else if (compare(id, heap[0]) < 0) {
+      heap[0] = id;
+      siftDown(0);
+    }
+  }
+  return heap.sort(compare);
+}
+
+export class StandinIndex {
+  readonly createdAt = now();
+  updatedAt = this.createdAt;
+  #settings: IndexSettings = defaultSettings();
+  /** Stored documents by internal id; deleted slots hold undefined. */
+  #docs: (Json | undefined)[] = [];
+  /** 1 at the internal id of each stored document; grows by doubling, used up to #docs.length. */
+  #live = new Uint8Array(1024);
+  #idsByKey = new Map<string, number>();
+  /** Top-level attributes in order of first appearance: the searchable order under `*`. */
+  #fieldOrder: string[] = [];
+  #text: TextIndex | null = null;
+  #facets = new Map<string, FacetField>();
+  #sortRanks = new Map<string, Int32Array>();
+
+  constructor(
+    readonly uid: string,
+    public primaryKey: string | null = null,
+  ) {}
+
+  get settings(): IndexSettings {
+    return this.#settings;
+  }
+
+  get documentCount(): number {
+    return this.#idsByKey.size;
+  }
+
+  info(): { uid: string; primaryKey: string | null; createdAt: string; updatedAt: string } {
+    return { uid: this.uid, primaryKey: this.primaryKey, createdAt: this.createdAt, updatedAt: this.updatedAt };
+  }
+
+  setPrimaryKey(primaryKey: string): void {
+    // Meilisearch only lets the primary key change while the index holds no documents.
+    if (this.documentCount > 0 && primaryKey !== this.primaryKey) throw this.#primaryKeyExists();
+    this.primaryKey = primaryKey;
+    this.updatedAt = now();
+  }
+
+  /** Adds documents, replacing (`replace`) or merging into (`update`) existing ones. All or nothing. */
+  addDocuments(documents: Json[], mode: 'replace' | 'update', requestedKey?: string): number {
+    const primaryKey = this.#resolvePrimaryKey(documents, requestedKey);
+    if (primaryKey === null) return 0;
+    const keyed = documents.map((doc) => [documentKey(doc, primaryKey), doc] as const);
+    this.primaryKey = primaryKey;
+    for (const [key, doc] of keyed) this.#upsert(key, doc, mode);
+    this.#afterWrite();
+    return keyed.length;
+  }
+
+  deleteDocuments(externalIds: (string | number)[]): number {
+    let deleted = 0;
+    for (const externalId of externalIds) {
+      const id = this.#idsByKey.get(String(externalId));
+      if (id === undefined) continue;
+      this.#remove(id);
+      deleted++;
+    }
+    this.#afterWrite();
+    return deleted;
+  }
+
+  deleteWhere(filter: FilterNode): number {
+    const ids = this.#selectedIds(evaluateFilter(filter, this.#filterSource('invalid_document_filter')));
+    for (const id of ids) this.#remove(id);
+    this.#afterWrite();
+    return ids.length;
+  }
+
+  clear(): number {
+    const deleted = this.documentCount;
+    this.#docs = [];
+    this.#live.fill(0);
+    this.#idsByKey.clear();
+    this.#text = null;
+    this.#facets.clear();
+    this.#afterWrite();
+    return deleted;
+  }
+
+  updateSettings(patch: SettingsPatch): void {
+    const previous = this.#settings;
+    const next = applySettings(previous, patch);
+    const changed = (name: keyof IndexSettings) => JSON.stringify(previous[name]) !== JSON.stringify(next[name]);
+    this.#settings = next;
+    if (changed('searchableAttributes') || changed('stopWords')) this.#text = null;
+    if (changed('filterableAttributes')) this.#facets.clear();
+    this.updatedAt = now();
+  }
+
+  getDocument(externalId: string, fields?: string[]): Json {
+    const id = this.#idsByKey.get(externalId);
+    if (id === undefined) {
+      throw new MeiliError(404, 'document_not_found', `Document \`${externalId}\` not found.`);
+    }
+    return this.#projector(fields)(this.#docs[id]!);
+  }
+
+  listDocuments(request: DocumentsRequest): { results: Json[]; offset: number; limit: number; total: number } {
+    const filter = parseFilter(request.filter, 'invalid_document_filter');
+    let bits = filter ? evaluateFilter(filter, this.#filterSource('invalid_document_filter')) : this.#liveBits();
+    if (request.ids) {
+      const wanted = bitsFromIds(request.ids.flatMap((id) => this.#idsByKey.get(String(id)) ?? []), bits.length);
+      for (let i = 0; i < bits.length; i++) wanted[i] &= bits[i];
+      bits = wanted;
+    }
+    const offset = request.offset ?? 0;
+    const limit = request.limit ?? DEFAULT_LIMIT;
+    const matched = this.#selectedIds(bits);
+    const sort = this.#parseSort(request.sort, 'invalid_document_sort');
+    const page = this.#rank(matched, null, sort, offset + limit).slice(offset);
+    const project = this.#projector(request.fields);
+    return { results: page.map((id) => project(this.#docs[id]!)), offset, limit, total: matched.length };
+  }
+
+  search(request: SearchRequest): Json {
+    const started = performance.now();
+    const sort = this.#parseSort(request.sort, 'invalid_search_sort');
+    if (sort.length > 0 && !this.#settings.rankingRules.includes('sort')) {
+      throw new MeiliError(
+        400,
+        'invalid_search_sort',
+        'You must specify where `sort` is listed in the rankingRules setting to use the sort parameter at search time.',
+      );
+    }
+    const facets = this.#facetFields(request.facets ?? []);
+    const filter = parseFilter(request.filter, 'invalid_search_filter');
+    const filterBits = filter ? evaluateFilter(filter, this.#filterSource('invalid_search_filter')) : null;
+
+    const size = this.#docs.length;
+    const text = request.q ? this.#textIndex().search(request.q, size, this.#textOptions(request)) : null;
+    let matched: number[];
+    let matchedBits: DocBits;
+    if (text) {
+      matched = filterBits ? text.ids.filter((id) => filterBits[id]) : text.ids;
+      matchedBits = bitsFromIds(matched, size);
+    } else {
+      matchedBits = filterBits ?? this.#liveBits();
+      matched = this.#selectedIds(matchedBits);
+    }
+
+    const response: Json = { hits: [], query: request.q ?? '', processingTimeMs: 0 };
+    const window = this.#paginate(request, matched.length, response);
+    const project = this.#projector(request.attributesToRetrieve);
+    const ranked = this.#rank(matched, text, sort, window.end);
+    response.hits = ranked.slice(window.start, window.end).map((id) => project(this.#docs[id]!));
+    if (request.facets) Object.assign(response, this.#facetSummary(facets, matchedBits));
+    response.processingTimeMs = Math.round(performance.now() - started);
+    return response;
+  }
+
+  #resolvePrimaryKey(documents: Json[], requestedKey: string | undefined): string | null {
+    if (this.primaryKey !== null) {
+      if (requestedKey !== undefined && requestedKey !== this.primaryKey) throw this.#primaryKeyExists();
+      return this.primaryKey;
+    }
+    if (requestedKey !== undefined) return requestedKey;
+    return documents.length > 0 ? inferPrimaryKey(documents[0]!) : null;
+  }
+
+  #primaryKeyExists(): MeiliError {
+    return new MeiliError(
+      400,
+      'index_primary_key_already_exists',
+      `Index \`${this.uid}\` already has a primary key: \`${this.primaryKey}\`.`,
+    );
+  }
+
+  #upsert(key: string, doc: Json, mode: 'replace' | 'update'): void {
+    let id = this.#idsByKey.get(key);
+    const previous = id === undefined ? undefined : this.#docs[id];
+    // Meilisearch's update mode merges top-level attributes only.
+    const stored = previous && mode === 'update' ? { ...previous, ...doc } : doc;
+    if (id === undefined) {
+      id = this.#docs.push(stored) - 1;
+      this.#idsByKey.set(key, id);
+      this.#markLive(id);
+    } else {
+      this.#docs[id] = stored;
+    }
+    this.#learnFields(stored);
+    for (const field of this.#facets.values()) {
+      if (previous) field.remove(id, previous);
+      field.add(id, stored);
+    }
+    if (previous) this.#text?.remove(id, previous);
+    this.#text?.add(id, stored);
+  }
+
+  #remove(id: number): void {
+    const doc = this.#docs[id]!;
+    for (const field of this.#facets.values()) field.remove(id, doc);
+    this.#text?.remove(id, doc);
+    this.#idsByKey.delete(String(doc[this.primaryKey!]));
+    this.#docs[id] = undefined;
+    this.#live[id] = 0;
+  }
+
+  #markLive(id: number): void {
+    if (id >= this.#live.length) {
+      const grown = new Uint8Array(this.#live.length * 2);
+      grown.set(this.#live);
+      this.#live = grown;
+    }
+    this.#live[id] = 1;
+  }
+
+  #afterWrite(): void {
+    // Internal ids are never reused while documents remain; start afresh once the index is empty.
+    if (this.documentCount === 0 && this.#docs.length > 0) this.clear();
+    this.#sortRanks.clear();
+    this.updatedAt = now();
+  }
+
+  #learnFields(doc: Json): void {
+    for (const field of Object.keys(doc)) {
+      if (this.#fieldOrder.includes(field)) continue;
+      this.#fieldOrder.push(field);
+      // The full-text index is built with a fixed field list; a new field under `*` needs a rebuild.
+      if (this.#settings.searchableAttributes.includes('*')) this.#text = null;
+    }
+  }
+
+  #textIndex(): TextIndex {
+    if (!this.#text) {
+      const searchable = this.#settings.searchableAttributes;
+      const fields = searchable.includes('*') ? [...this.#fieldOrder] : searchable;
+      this.#text = new TextIndex(fields, this.#settings.stopWords);
+      for (const [id, doc] of this.#docs.entries()) if (doc) this.#text.add(id, doc);
+    }
+    return this.#text;
+  }
+
+  #textOptions(request: SearchRequest) {
+    return {
+      typoTolerance: this.#settings.typoTolerance,
+      matchingStrategy: request.matchingStrategy ?? 'last',
+      prefixSearch: this.#settings.prefixSearch !== 'disabled',
+    };
+  }
+
+  /** A view, not a copy: callers must not write to it. */
+  #liveBits(): DocBits {
+    return this.#live.subarray(0, this.#docs.length);
+  }
+
+  #selectedIds(bits: DocBits): number[] {
+    const ids: number[] = [];
+    for (let id = 0; id < bits.length; id++) if (bits[id]) ids.push(id);
+    return ids;
+  }
+
+  #filterSource(code: string): FilterSource {
+    return { live: this.#liveBits(), field: (attribute) => this.#facetField(attribute, code) };
+  }
+
+  #facetField(attribute: string, code: string): FacetField {
+    const filterable = filterablePatterns(this.#settings);
+    if (!matchesAttributeList(filterable, attribute)) throw notFilterable(attribute, filterable, code);
+    let field = this.#facets.get(attribute);
+    if (!field) {
+      field = new FacetField(attribute);
+      for (const [id, doc] of this.#docs.entries()) if (doc) field.add(id, doc);
+      this.#facets.set(attribute, field);
+    }
+    return field;
+  }
+
+  #facetFields(names: string[]): FacetField[] {
+    // `facets: ["*"]` asks for every filterable attribute.
+    const expanded = names.includes('*')
+      ? filterablePatterns(this.#settings).filter((name) => !name.includes('*'))
+      : names;
+    return expanded.map((name) => this.#facetField(name, 'invalid_search_facets'));
+  }
+
+  #facetSummary(fields: FacetField[], matched: DocBits): Json {
+    const { maxValuesPerFacet, sortFacetValuesBy } = this.#settings.faceting;
+    const facetDistribution: Json = {};
+    const facetStats: Json = {};
+    for (const field of fields) {
+      const order = sortFacetValuesBy[field.attribute] ?? sortFacetValuesBy['*'] ?? 'alpha';
+      facetDistribution[field.attribute] = field.distribution(matched, maxValuesPerFacet, order);
+      const stats = field.stats(matched);
+      if (stats) facetStats[field.attribute] = stats;
+    }
+    return { facetDistribution, facetStats };
+  }
+
+  #parseSort(expressions: string[] | null | undefined, code: string): SortCriterion[] {
+    const sortable = this.#settings.sortableAttributes;
+    return (expressions ?? []).map((expression) => {
+      const criterion = parseSortCriterion(expression, code);
+      if (!matchesAttributeList(sortable, criterion.attribute)) {
+        throw new MeiliError(
+          400,
+          code,
+          `Attribute \`${criterion.attribute}\` is not sortable. Available sortable attributes are: \`${sortable.join(', ')}\`.`,
+        );
+      }
+      return criterion;
+    });
+  }
+
+  /**
+   * The first `count` matches in ranking-rule order, like Meilisearch's bucket sort. Rules
+   * without a signal here (proximity, wordPosition) are skipped; internal id order breaks ties,
+   * as Meilisearch falls back to document order.
+   */
+  #rank(matched: number[], text: TextMatches | null, sort: SortCriterion[], count: number): number[] {
+    const comparators: Compare<number>[] = [];
+    for (const rule of this.#settings.rankingRules) {
+      if (text && rule === 'words') comparators.push((a, b) => text.words[b] - text.words[a]);
+      else if (text && rule === 'typo') comparators.push((a, b) => text.typos[a] - text.typos[b]);
+      else if (text && (rule === 'attribute' || rule === 'attributeRank')) {
+        comparators.push((a, b) => text.attribute[a] - text.attribute[b]);
+      } else if (text && rule === 'exactness') comparators.push((a, b) => text.exact[b] - text.exact[a]);
+      else if (rule === 'sort') comparators.push(...sort.map((criterion) => this.#byAttribute(criterion)));
+      else if (/:(asc|desc)$/.test(rule)) {
+        comparators.push(this.#byAttribute(parseSortCriterion(rule, 'invalid_settings_ranking_rules')));
+      }
+    }
+    // Matches are gathered in internal id order, which is already the final order without rules.
+    if (comparators.length === 0) return matched.slice(0, count);
+    return firstInOrder(matched, count, (a, b) => {
+      for (const compare of comparators) {
+        const order = compare(a, b);
+        if (order !== 0) return order;
+      }
+      return a - b;
+    });
+  }
+
+  #byAttribute({ attribute, descending }: SortCriterion): Compare<number> {
+    return byRank(this.#ranks(attribute), descending);
+  }
+
+  /** Rank of every document's value for an attribute (-1 when absent), cached until the next write. */
+  #ranks(attribute: string): Int32Array {
+    const cached = this.#sortRanks.get(attribute);
+    if (cached) return cached;
+    const entries: [id: number, value: number | string][] = [];
+    for (const [id, doc] of this.#docs.entries()) {
+      const leaf = doc ? valuesAt(doc, attribute).leaves[0] : undefined;
+      if (leaf !== undefined) entries.push([id, sortValue(leaf)]);
+    }
+    entries.sort((a, b) => compareSortValues(a[1], b[1]));
+    const ranks = new Int32Array(this.#docs.length).fill(-1);
+    let rank = 0;
+    entries.forEach(([id, value], i) => {
+      if (i > 0 && compareSortValues(entries[i - 1]![1], value) !== 0) rank++;
+      ranks[id] = rank;
+    });
+    this.#sortRanks.set(attribute, ranks);
+    return ranks;
+  }
+
+  /** Meilisearch pagination: offset/limit by default, page/hitsPerPage when either is given. */
+  #paginate(request: SearchRequest, matched: number, response: Json): { start: number; end: number } {
+    const reachable = Math.min(matched, this.#settings.pagination.maxTotalHits);
+    if (request.page === undefined && request.hitsPerPage === undefined) {
+      const offset = request.offset ?? 0;
+      const limit = request.limit ?? DEFAULT_LIMIT;
+      Object.assign(response, { limit, offset, estimatedTotalHits: reachable });
+      return { start: offset, end: Math.min(offset + limit, reachable) };
+    }
+    const page = request.page ?? 1;
+    const hitsPerPage = request.hitsPerPage ?? DEFAULT_LIMIT;
+    const totalPages = hitsPerPage > 0 ? Math.ceil(reachable / hitsPerPage) : 0;
+    Object.assign(response, { hitsPerPage, page, totalPages, totalHits: reachable });
+    if (page === 0) return { start: 0, end: 0 };
+    const start = (page - 1) * hitsPerPage;
+    return { start, end: Math.min(start + hitsPerPage, reachable) };
+  }
+
+  #projector(requested: string[] | null | undefined): (doc: Json) => Json {
+    const displayed = this.#settings.displayedAttributes;
+    const wanted = requested ?? ['*'];
+    const displaysAll = displayed.includes('*');
+    if (displaysAll && wanted.includes('*')) return (doc) => doc;
+    const attributes = wanted.includes('*')
+      ? displayed
+      : wanted.filter((attribute) => displaysAll || matchesAttributeList(displayed, attribute));
+    return (doc) => pickAttributes(doc, attributes);
+  }
+}

@@ -1,0 +1,227 @@
+// Full-text matching for the search stand-in. Terms live in minisearch's radix tree
+// (SearchableMap), which answers the exact, prefix and fuzzy term lookups; each term maps to the
+// documents containing it. Instead of a relevance score, a search yields per-document signals for
+// Meilisearch's ranking rules (matched words, typos, exact words, best attribute), which the index
+// then bucket-sorts like Meilisearch. Skipping BM25 scoring keeps searches over 50,000 documents fast.
+
+import SearchableMap from 'minisearch/SearchableMap';
+import type { TypoTolerance } from './standin-settings.ts';
+
+export type Json = Record<string, unknown>;
+export type Leaf = string | number | boolean;
+
+/** Ranking signals by internal document id, for the documents listed in `ids`. */
+export type TextMatches = {
+  ids: number[];
+  /** Query words the document matched (the `words` rule). */
+  words: Uint8Array;
+  /** Query words matched only through a typo (the `typo` rule). */
+  typos: Uint8Array;
+  /** Query words matched without typo or prefix (the `exactness` rule). */
+  exact: Uint8Array;
+  /** Position in searchableAttributes of the best matching attribute (the `attribute` rule). */
+  attribute: Uint16Array;
+};
+
+export type TextSearchOptions = {
+  typoTolerance: TypoTolerance;
+  matchingStrategy: 'last' | 'all' | 'frequency';
+  prefixSearch: boolean;
+};
+
+/** Document id → best (lowest) rank of an attribute containing the term. */
+type Postings = Map<number, number>;
+
+// How a document matched a query word; a better match wins when several do.
+const Quality = { None: 0, Typo: 1, Prefix: 2, Exact: 3 } as const;
+type Quality = (typeof Quality)[keyof typeof Quality];
+
+const SEPARATORS = /[^\p{L}\p{N}]+/u;
+
+/** Case- and accent-insensitive form used for terms and facet values, as Meilisearch normalizes. */
+export function normalizeText(text: string): string {
+  return text.normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase();
+}
+
+export function isPlainObject(value: unknown): value is Json {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+function collectLeaves(value: unknown, out: Leaf[]): void {
+  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') {
+    out.push(value);
+  } else if (Array.isArray(value)) {
+    for (const item of value) collectLeaves(item, out);
+  } else if (isPlainObject(value)) {
+    for (const item of Object.values(value)) collectLeaves(item, out);
+  }
+}
+
+function collectAt(value: unknown, segments: string[], depth: number, out: Leaf[]): boolean {
+  if (depth === segments.length) {
+    collectLeaves(value, out);
+    return true;
+  }
+  if (Array.isArray(value)) {
+    let found = false;
+    for (const item of value) found = collectAt(item, segments, depth, out) || found;
+    return found;
+  }
+  if (!isPlainObject(value) || !Object.hasOwn(value, segments[depth]!)) return false;
+  return collectAt(value[segments[depth]!], segments, depth + 1, out);
+}
+
+/**
+ * Scalar values at a dotted attribute path, flattening arrays and nested objects the way
+ * Meilisearch flattens documents. `present` is true when the attribute exists, even if null.
+ */
+export function valuesAt(doc: Json, path: string): { present: boolean; leaves: Leaf[] } {
+  const leaves: Leaf[] = [];
+  const present = collectAt(doc, path.split('.'), 0, leaves);
+  return { present, leaves };
+}
+
+function typoBudget(term: string, typo: TypoTolerance): number {
+  if (!typo.enabled || typo.disableOnWords.includes(term)) return 0;
+  if (typo.disableOnNumbers && /^\d+$/.test(term)) return 0;
+  if (term.length >= typo.minWordSizeForTypos.twoTypos) return 2;
+  return term.length >= typo.minWordSizeForTypos.oneTypo ? 1 : 0;
+}
+
+// Meilisearch counts swapping two adjacent letters as one typo; Levenshtein distance counts two.
+function adjacentSwaps(term: string): string[] {
+  const swaps = new Set<string>();
+  for (let i = 0; i < term.length - 1; i++) {
+    if (term[i] === term[i + 1]) continue;
+    swaps.add(term.slice(0, i) + term[i + 1] + term[i] + term.slice(i + 2));
+  }
+  return [...swaps];
+}
+
+/** Per-document match quality of one query word, and the best attribute it matched in. */
+class WordMatch {
+  readonly quality: Uint8Array;
+  readonly attribute: Uint16Array;
+
+  constructor(size: number) {
+    this.quality = new Uint8Array(size);
+    this.attribute = new Uint16Array(size);
+  }
+
+  mark(postings: Postings | undefined, quality: Quality): void {
+    if (!postings) return;
+    for (const [id, rank] of postings) {
+      if (this.quality[id] === Quality.None || rank < this.attribute[id]) this.attribute[id] = rank;
+      if (quality > this.quality[id]) this.quality[id] = quality;
+    }
+  }
+}
+
+export class TextIndex {
+  readonly #terms = new SearchableMap<Postings>();
+  readonly #fields: string[];
+  readonly #stopWords: Set<string>;
+
+  constructor(fields: string[], stopWords: string[]) {
+    this.#fields = fields;
+    this.#stopWords = new Set(stopWords.map(normalizeText));
+  }
+
+  add(id: number, doc: Json): void {
+    this.#fields.forEach((field, rank) => {
+      for (const term of this.#termsOf(searchableText(doc, field))) {
+        const postings = this.#terms.fetch(term, () => new Map());
+        const best = postings.get(id);
+        if (best === undefined || rank < best) postings.set(id, rank);
+      }
+    });
+  }
+
+  remove(id: number, doc: Json): void {
+    for (const field of this.#fields) {
+      for (const term of this.#termsOf(searchableText(doc, field))) {
+        const postings = this.#terms.get(term);
+        if (postings?.delete(id) && postings.size === 0) this.#terms.delete(term);
+      }
+    }
+  }
+
+  /**
+   * Ranking signals of the documents matching the query, or null when the query has no
+   * searchable words (then every document matches, as for a placeholder search). `size` is the
+   * number of internal id slots. With the `last` strategy, documents matching only the first
+   * words are included too, as Meilisearch drops query words from the end.
+   */
+  search(query: string, size: number, options: TextSearchOptions): TextMatches | null {
+    const words = this.#termsOf(query);
+    if (words.length === 0) return null;
+    const matches = words.map((word, i) =>
+      this.#matchWord(word, size, options.prefixSearch && i === words.length - 1, typoBudget(word, options.typoTolerance)),
+    );
+    const fewestWords = options.matchingStrategy === 'all' ? words.length : 1;
+    const result: TextMatches = {
+      ids: [],
+      words: new Uint8Array(size),
+      typos: new Uint8Array(size),
+      exact: new Uint8Array(size),
+      attribute: new Uint16Array(size),
+    };
+    const first = matches[0]!.quality;
+    for (let id = 0; id < size; id++) {
+      if (first[id] === Quality.None) continue;
+      let matched = 0;
+      let typos = 0;
+      let exact = 0;
+      let attribute = Infinity;
+      for (const match of matches) {
+        const quality = match.quality[id];
+        if (quality === Quality.None) break;
+        matched++;
+        if (quality === Quality.Typo) typos++;
+        if (quality === Quality.Exact) exact++;
+        attribute = Math.min(attribute, match.attribute[id]);
+      }
+      if (matched < fewestWords) continue;
+      result.ids.push(id);
+      result.words[id] = matched;
+      result.typos[id] = typos;
+      result.exact[id] = exact;
+      result.attribute[id] = attribute;
+    }
+    return result;
+  }
+
+  // Only the query's final word is matched as a prefix, as in Meilisearch.
+  #matchWord(word: string, size: number, prefix: boolean, budget: number): WordMatch {
+    const match = new WordMatch(size);
+    match.mark(this.#terms.get(word), Quality.Exact);
+    if (prefix) {
+      for (const [term, postings] of this.#terms.atPrefix(word)) {
+        if (term !== word) match.mark(postings, Quality.Prefix);
+      }
+    }
+    if (budget > 0) {
+      for (const [postings, distance] of this.#terms.fuzzyGet(word, budget).values()) {
+        if (distance > 0) match.mark(postings, Quality.Typo);
+      }
+      for (const swapped of adjacentSwaps(word)) {
+        if (budget === 1) match.mark(this.#terms.get(swapped), Quality.Typo);
+        else for (const [postings] of this.#terms.fuzzyGet(swapped, budget - 1).values()) match.mark(postings, Quality.Typo);
+      }
+    }
+    return match;
+  }
+
+  #termsOf(text: string | undefined): string[] {
+    if (!text) return [];
+    return text.split(SEPARATORS).flatMap((token) => {
+      const term = normalizeText(token);
+      return term && !this.#stopWords.has(term) ? [term] : [];
+    });
+  }
+}
+
+function searchableText(doc: Json, field: string): string | undefined {
+  const { leaves } = valuesAt(doc, field);
+  return leaves.length ? leaves.join(' ') : undefined;
+}

@@ -1,0 +1,266 @@
+import { and, asc, count, eq, inArray, isNull, or, sql } from 'drizzle-orm';
+import type { Db, Tx } from '../db/client.ts';
+import { makers, partMedia, parts, partSupplierSkus, ranges, stockLevels, suppliers, warehouses } from '../db/schema/index.ts';
+import type { PartsIndex, PartDocument } from '../search/parts-index.ts';
+import { authorize, type Actor } from '../policies/actor.ts';
+import { can } from '@shared/roles.ts';
+import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
+import { normalizeGtin14 } from '@shared/domain/gtin.ts';
+import type { PartInputParsed, PartListQuery } from '@shared/contracts/parts.ts';
+
+const FACETS = ['category', 'maker', 'ranges', 'lifecycle', 'inStock'] as const;
+const SORTS: Record<string, string> = { sku: 'sku', name: 'name', category: 'category', maker: 'maker' };
+
+/** A filter value quoted for the search engine's filter syntax. */
+const quote = (v: string) => `"${v.replace(/["\\]/g, '\\$&')}"`;
+
+export type PartRow = typeof parts.$inferSelect;
+
+export function createCatalogueService({ db, partsIndex }: { db: Db; partsIndex: PartsIndex }) {
+  async function findPart(sku: string) {
+    const [p] = await db.select().from(parts).where(eq(parts.sku, sku.toUpperCase()));
+    if (!p) throw new NotFoundError(`Part ${sku}`);
+    return p;
+  }
+
+  /** A scanned or typed code: exact SKU, GTIN (any length, compared as GTIN-14) or supplier SKU. */
+  async function exactMatch(code: string): Promise<string | null> {
+    const c = code.trim();
+    if (!c || c.length > 64 || /\s/.test(c)) return null;
+    const gtin14 = /^\d{8,14}$/.test(c) ? normalizeGtin14(c) : null;
+    const [hit] = await db
+      .select({ sku: parts.sku })
+      .from(parts)
+      .leftJoin(partSupplierSkus, eq(partSupplierSkus.partId, parts.id))
+      .where(
+        or(
+          eq(parts.sku, c.toUpperCase()),
+          gtin14 ? sql`lpad(${parts.gtin}, 14, '0') = ${gtin14}` : undefined,
+          sql`upper(${partSupplierSkus.supplierSku}) = ${c.toUpperCase()}`,
+        ),
+      )
+      .limit(1);
+    return hit?.sku ?? null;
+  }
+
+  /** Names → ids for a part's references, with field-level messages for what does not exist. */
+  async function resolveRefs(tx: Tx, input: PartInputParsed) {
+    const [maker] = await tx.select({ id: makers.id }).from(makers).where(eq(makers.code, input.makerCode));
+    const fields: { path: string; message: string }[] = [];
+    if (!maker) fields.push({ path: 'makerCode', message: `There is no maker ${input.makerCode}.` });
+    let supersededById: string | null = null;
+    if (input.supersededBySku) {
+      const [s] = await tx.select({ id: parts.id }).from(parts).where(eq(parts.sku, input.supersededBySku));
+      if (!s) fields.push({ path: 'supersededBySku', message: `There is no part ${input.supersededBySku}.` });
+      supersededById = s?.id ?? null;
+    }
+    const codes = [...new Set(input.supplierSkus.map((s) => s.supplier))];
+    const found = codes.length ? await tx.select().from(suppliers).where(inArray(suppliers.code, codes)) : [];
+    const supplierIds = new Map(found.map((s) => [s.code, s.id]));
+    input.supplierSkus.forEach((s, i) => {
+      if (!supplierIds.has(s.supplier)) fields.push({ path: `supplierSkus.${i}.supplier`, message: `There is no supplier ${s.supplier}.` });
+    });
+    if (fields.length) throw new ValidationError('Some references do not exist.', { fields });
+    return { makerId: maker!.id, supersededById, supplierIds };
+  }
+
+  function columnsFrom(input: PartInputParsed, refs: { makerId: string; supersededById: string | null }) {
+    return {
+      sku: input.sku,
+      name: input.name,
+      category: input.attributes.category,
+      makerId: refs.makerId,
+      description: input.description,
+      gtin: input.gtin ?? null,
+      unit: input.unit,
+      packSize: input.packSize,
+      massKg: input.massKg,
+      widthMm: input.widthMm ?? null,
+      heightMm: input.heightMm ?? null,
+      depthMm: input.depthMm ?? null,
+      ipRating: input.ipRating ?? null,
+      lifecycle: input.lifecycle,
+      supersededById: refs.supersededById,
+      unNumber: input.dangerousGoods?.unNumber ?? null,
+      dgClass: input.dangerousGoods?.class ?? null,
+      whRating: input.dangerousGoods?.whRating ?? null,
+      costCents: input.costCents ?? null,
+      listPriceCents: input.listPriceCents ?? null,
+      attributes: input.attributes,
+      compliance: input.compliance ?? null,
+      updatedAt: new Date(),
+    };
+  }
+
+  /** Writes a part and its supplier SKUs, then updates the index before committing, so both agree. */
+  async function save(actor: Actor, input: PartInputParsed, existing: PartRow | null) {
+    authorize(actor, 'catalogue.edit');
+    try {
+      return await db.transaction(async (tx) => {
+        const refs = await resolveRefs(tx, input);
+        const values = columnsFrom(input, refs);
+        const [row] = existing
+          ? await tx.update(parts).set(values).where(eq(parts.id, existing.id)).returning()
+          : await tx.insert(parts).values(values).returning();
+        await tx.delete(partSupplierSkus).where(eq(partSupplierSkus.partId, row!.id));
+        if (input.supplierSkus.length)
+          await tx.insert(partSupplierSkus).values(input.supplierSkus.map((s) => ({ partId: row!.id, supplierId: refs.supplierIds.get(s.supplier)!, supplierSku: s.sku })));
+        await partsIndex.sync(tx, [row!.id]);
+        return row!;
+      });
+    } catch (e) {
+      throw uniqueViolation(e) ?? e;
+    }
+  }
+
+  return {
+    findPart,
+    exactMatch,
+
+    async lookup(actor: Actor, code: string) {
+      authorize(actor, 'catalogue.view');
+      const sku = await exactMatch(code);
+      if (!sku) throw new NotFoundError(`A part with the code ${code}`);
+      return { sku };
+    },
+
+    /** After a change outside save() (media), the search document follows. */
+    async reindex(partId: string) {
+      await partsIndex.sync(db, [partId]);
+    },
+
+    async list(actor: Actor, query: PartListQuery) {
+      authorize(actor, 'catalogue.view');
+      const filter = ['archived = false'];
+      if (query.category) filter.push(`category = ${quote(query.category)}`);
+      if (query.maker) filter.push(`maker = ${quote(query.maker)}`);
+      if (query.range) filter.push(`ranges = ${quote(query.range)}`);
+      if (query.lifecycle) filter.push(`lifecycle = ${quote(query.lifecycle)}`);
+      if (query.inStock) filter.push(`inStock = ${query.inStock}`);
+      const sort = query.sort !== 'relevance' ? [`${SORTS[query.sort]}:${query.dir}`] : query.q ? undefined : ['sku:asc'];
+      const [result, exactSku] = await Promise.all([
+        partsIndex.index.search(query.q, {
+          filter: filter.join(' AND '),
+          facets: [...FACETS],
+          sort,
+          limit: query.pageSize,
+          offset: (query.page - 1) * query.pageSize,
+        }),
+        exactMatch(query.q),
+      ]);
+      const dist = result.facetDistribution ?? {};
+      return {
+        hits: result.hits as PartDocument[],
+        total: result.estimatedTotalHits ?? result.hits.length,
+        facets: {
+          category: dist.category ?? {},
+          maker: dist.maker ?? {},
+          range: dist.ranges ?? {},
+          lifecycle: dist.lifecycle ?? {},
+          inStock: dist.inStock ?? {},
+        },
+        exactSku,
+      };
+    },
+
+    /** Every matching part (capped) for the CSV export. */
+    async exportRows(actor: Actor, query: PartListQuery) {
+      const rows: PartDocument[] = [];
+      for (let page = 1; page <= 50; page++) {
+        const { hits, total } = await this.list(actor, { ...query, page, pageSize: 200 });
+        rows.push(...hits);
+        if (rows.length >= total || hits.length === 0) break;
+      }
+      return rows;
+    },
+
+    async detail(actor: Actor, sku: string) {
+      authorize(actor, 'catalogue.view');
+      const p = await findPart(sku);
+      const [[maker], successor, predecessors, media, stock, supplierRows, [doc]] = await Promise.all([
+        db.select().from(makers).where(eq(makers.id, p.makerId)),
+        p.supersededById ? db.select({ sku: parts.sku, name: parts.name }).from(parts).where(eq(parts.id, p.supersededById)) : Promise.resolve([]),
+        db.select({ sku: parts.sku, name: parts.name }).from(parts).where(eq(parts.supersededById, p.id)).orderBy(asc(parts.sku)),
+        db.select().from(partMedia).where(eq(partMedia.partId, p.id)).orderBy(asc(partMedia.createdAt)),
+        db
+          .select({
+            warehouse: warehouses.code,
+            warehouseName: warehouses.name,
+            onHand: sql<number>`coalesce(sum(${stockLevels.onHand}), 0)::int`,
+            reserved: sql<number>`coalesce(sum(${stockLevels.reserved}), 0)::int`,
+          })
+          .from(warehouses)
+          .leftJoin(stockLevels, and(eq(stockLevels.warehouseId, warehouses.id), eq(stockLevels.partId, p.id)))
+          .groupBy(warehouses.id)
+          .orderBy(asc(warehouses.rank), asc(warehouses.code)),
+        can(actor.role, 'suppliers.view')
+          ? db.select({ supplier: suppliers.code, sku: partSupplierSkus.supplierSku }).from(partSupplierSkus).innerJoin(suppliers, eq(suppliers.id, partSupplierSkus.supplierId)).where(eq(partSupplierSkus.partId, p.id))
+          : Promise.resolve(null),
+        partsIndex.index.search('', { filter: `sku = ${quote(p.sku)}`, limit: 1 }).then((r) => r.hits as PartDocument[]),
+      ]);
+      return { part: p, maker: maker!, successor: successor[0] ?? null, predecessors, media, stock, supplierSkus: supplierRows, ranges: doc?.ranges ?? [] };
+    },
+
+    create: (actor: Actor, input: PartInputParsed) => save(actor, input, null),
+
+    async update(actor: Actor, sku: string, input: PartInputParsed) {
+      authorize(actor, 'catalogue.edit');
+      return save(actor, input, await findPart(sku));
+    },
+
+    async setArchived(actor: Actor, sku: string, archived: boolean) {
+      authorize(actor, 'catalogue.edit');
+      const p = await findPart(sku);
+      return db.transaction(async (tx) => {
+        const [row] = await tx.update(parts).set({ archivedAt: archived ? new Date() : null, updatedAt: new Date() }).where(eq(parts.id, p.id)).returning();
+        await partsIndex.sync(tx, [p.id]);
+        return row!;
+      });
+    },
+
+    async makers(actor: Actor) {
+      authorize(actor, 'catalogue.view');
+      return db
+        .select({ code: makers.code, name: makers.name, country: makers.country, parts: count(parts.id) })
+        .from(makers)
+        .leftJoin(parts, and(eq(parts.makerId, makers.id), isNull(parts.archivedAt)))
+        .groupBy(makers.id)
+        .orderBy(asc(makers.name));
+    },
+
+    async ranges(actor: Actor) {
+      authorize(actor, 'catalogue.view');
+      const controller = sql<string>`(select sku from parts where parts.id = ${ranges.controllerId})`;
+      const moduleSku = sql<string>`(select sku from parts where parts.id = ${ranges.moduleId})`;
+      return db
+        .select({
+          id: ranges.id,
+          code: ranges.code,
+          name: ranges.name,
+          maker: makers.code,
+          makerName: makers.name,
+          connection: ranges.connection,
+          minModules: ranges.minModules,
+          maxModules: ranges.maxModules,
+          maxStacks: ranges.maxStacks,
+          controllerSku: controller,
+          moduleSku,
+        })
+        .from(ranges)
+        .innerJoin(makers, eq(makers.id, ranges.makerId))
+        .orderBy(asc(ranges.name));
+    },
+  };
+}
+
+export type CatalogueService = ReturnType<typeof createCatalogueService>;
+
+/** Unique violations as 409s that name the field. */
+function uniqueViolation(e: unknown) {
+  const cause = (e as { cause?: { code?: string; constraint?: string } })?.cause;
+  if (cause?.code !== '23505') return null;
+  if (cause.constraint?.includes('sku') && !cause.constraint.includes('supplier'))
+    return new ConflictError('A part with that SKU already exists.', { fields: [{ path: 'sku', message: 'Already in use by another part.' }] });
+  if (cause.constraint?.includes('gtin')) return new ConflictError('Another part already has that GTIN.', { fields: [{ path: 'gtin', message: 'Already on another part.' }] });
+  return new ConflictError('That supplier SKU already belongs to another part.', { fields: [{ path: 'supplierSkus', message: 'Already on another part.' }] });
+}

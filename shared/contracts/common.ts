@@ -1,0 +1,41 @@
+import { z } from 'zod';
+import { ROLES } from '../roles.ts';
+
+export const ErrorEnvelopeSchema = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    details: z.unknown().optional(),
+  }),
+  requestId: z.string(),
+});
+export type ErrorEnvelope = z.infer<typeof ErrorEnvelopeSchema>;
+
+export const RoleSchema = z.enum(ROLES);
+
+export const CompanySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  kind: z.enum(['wholesaler', 'installer']),
+});
+export type Company = z.infer<typeof CompanySchema>;
+
+export const MeSchema = z.object({
+  user: z.object({ id: z.string(), name: z.string(), email: z.string() }),
+  role: RoleSchema,
+  company: CompanySchema.nullable(),
+  abilities: z.array(z.string()),
+});
+export type Me = z.infer<typeof MeSchema>;
+
+export const HealthSchema = z.object({
+  status: z.enum(['ok', 'degraded']),
+  db: z.enum(['up', 'down']),
+  search: z.enum(['up', 'down']),
+});
+export type Health = z.infer<typeof HealthSchema>;
+
+export const PageQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+});

@@ -1,0 +1,183 @@
+import { z } from 'zod';
+import { isValidGtin } from '../domain/gtin.ts';
+import { CategoryCodeSchema, ComplianceSchema, IP_RATING_RE, PartAttributesSchema } from './part-attributes.ts';
+
+export const LIFECYCLES = ['active', 'superseded', 'discontinued'] as const;
+export const LifecycleSchema = z.enum(LIFECYCLES);
+export type Lifecycle = (typeof LIFECYCLES)[number];
+export const LIFECYCLE_LABELS: Record<Lifecycle, string> = { active: 'Active', superseded: 'Superseded', discontinued: 'Discontinued' };
+
+export const UNITS = ['each', 'pack', 'set', 'm'] as const;
+
+export const SKU_RE = /^[A-Z0-9][A-Z0-9._/-]{1,39}$/;
+export const SkuSchema = z
+  .string()
+  .trim()
+  .transform((s) => s.toUpperCase())
+  .pipe(z.string().regex(SKU_RE, 'A SKU is 2–40 capital letters, digits, dots, dashes or slashes.'));
+
+export const GtinSchema = z
+  .string()
+  .trim()
+  .regex(/^(\d{8}|\d{12}|\d{13}|\d{14})$/, 'A GTIN has 8, 12, 13 or 14 digits.')
+  .refine(isValidGtin, 'That GTIN’s check digit is wrong: check the number on the label.');
+
+export const DangerousGoodsSchema = z.strictObject({
+  unNumber: z.enum(['UN3480', 'UN3481']),
+  class: z.literal('9'),
+  whRating: z.number().positive('The Wh rating must be above 0.').max(200_000, 'The Wh rating must be at most 200,000 Wh.'),
+});
+
+const mm = (label: string) => z.number().int(`${label} is whole millimetres.`).min(1, `${label} must be at least 1 mm.`).max(5000, `${label} must be at most 5,000 mm.`);
+
+/** What purchasing and admin send to create or change a part. */
+export const PartInputSchema = z
+  .strictObject({
+    sku: SkuSchema,
+    name: z.string().trim().min(2, 'Give the part a name.').max(160),
+    makerCode: z.string().trim().min(1, 'Choose a maker.').max(16),
+    description: z.string().trim().max(4000).default(''),
+    gtin: GtinSchema.nullable().optional(),
+    unit: z.enum(UNITS).default('each'),
+    packSize: z.number().int('Pack size is a whole number.').min(1, 'Pack size is at least 1.').max(10_000, 'Pack size must be at most 10,000.'),
+    massKg: z.number().min(0, 'Mass cannot be negative.').max(2000, 'Mass must be at most 2,000 kg.'),
+    widthMm: mm('Width').nullable().optional(),
+    heightMm: mm('Height').nullable().optional(),
+    depthMm: mm('Depth').nullable().optional(),
+    ipRating: z.string().regex(IP_RATING_RE, 'An IP rating looks like IP55 or IPX4.').nullable().optional(),
+    lifecycle: LifecycleSchema.default('active'),
+    supersededBySku: SkuSchema.nullable().optional(),
+    dangerousGoods: DangerousGoodsSchema.nullable().optional(),
+    costCents: z.number().min(0, 'Cost cannot be negative.').max(100_000_000, 'Cost must be below $1,000,000.').multipleOf(0.01, 'Cost carries at most 4 decimals of a dollar.').nullable().optional(),
+    listPriceCents: z.number().int('List price is whole cents.').min(0, 'List price cannot be negative.').max(100_000_000).nullable().optional(),
+    attributes: PartAttributesSchema,
+    compliance: ComplianceSchema.nullable().optional(),
+    supplierSkus: z.array(z.strictObject({ supplier: z.string().min(1).max(16), sku: z.string().trim().min(1).max(64) })).max(20).default([]),
+  })
+  .superRefine((p, ctx) => {
+    if (p.attributes.category === undefined) return;
+    if (p.lifecycle === 'superseded' && !p.supersededBySku)
+      ctx.addIssue({ code: 'custom', path: ['supersededBySku'], message: 'Say which part supersedes this one.' });
+    if (p.supersededBySku && p.supersededBySku === p.sku) ctx.addIssue({ code: 'custom', path: ['supersededBySku'], message: 'A part cannot supersede itself.' });
+    const carriesCells = p.attributes.category === 'module' || (p.attributes.category === 'controller' && p.attributes.carriesCells);
+    if (carriesCells && !p.dangerousGoods)
+      ctx.addIssue({ code: 'custom', path: ['dangerousGoods'], message: 'Parts with cells ship as dangerous goods: give the UN number and Wh rating.' });
+  });
+export type PartInput = z.input<typeof PartInputSchema>;
+export type PartInputParsed = z.output<typeof PartInputSchema>;
+
+/** Category from the body must match the attributes' category: one source of truth. */
+export const categoryOf = (p: { attributes: { category: string } }) => p.attributes.category;
+
+export const PartListQuerySchema = z.object({
+  q: z.string().trim().max(200).default(''),
+  category: CategoryCodeSchema.optional(),
+  maker: z.string().trim().max(16).optional(),
+  range: z.string().trim().max(32).optional(),
+  lifecycle: LifecycleSchema.optional(),
+  inStock: z.enum(['true', 'false']).optional(),
+  sort: z.enum(['relevance', 'sku', 'name', 'category', 'maker']).default('relevance'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  page: z.coerce.number().int().min(1).max(1000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+});
+export type PartListQuery = z.infer<typeof PartListQuerySchema>;
+
+export const PartSummarySchema = z.object({
+  sku: z.string(),
+  name: z.string(),
+  category: CategoryCodeSchema,
+  maker: z.string(),
+  makerName: z.string(),
+  gtin: z.string().nullable(),
+  lifecycle: LifecycleSchema,
+  ranges: z.array(z.string()),
+  packSize: z.number(),
+  unit: z.string(),
+  listPriceCents: z.number().nullable(),
+  available: z.number(),
+  inStock: z.boolean(),
+  thumbnailUrl: z.string().nullable(),
+});
+export type PartSummary = z.infer<typeof PartSummarySchema>;
+
+export const FacetsSchema = z.object({
+  category: z.record(z.string(), z.number()),
+  maker: z.record(z.string(), z.number()),
+  range: z.record(z.string(), z.number()),
+  lifecycle: z.record(z.string(), z.number()),
+  inStock: z.record(z.string(), z.number()),
+});
+export type Facets = z.infer<typeof FacetsSchema>;
+
+export const PartListResponseSchema = z.object({
+  data: z.array(PartSummarySchema),
+  facets: FacetsSchema,
+  total: z.number(),
+  page: z.number(),
+  pageSize: z.number(),
+  /** Set when q is exactly a SKU, GTIN or supplier SKU (a scan): the client jumps to it. */
+  exactSku: z.string().nullable(),
+});
+export type PartListResponse = z.infer<typeof PartListResponseSchema>;
+
+export const MediaSchema = z.object({
+  id: z.string(),
+  kind: z.enum(['image', 'datasheet']),
+  contentType: z.string(),
+  fileName: z.string(),
+  bytes: z.number(),
+  url: z.string(),
+  thumbnailUrl: z.string().nullable(),
+});
+export type Media = z.infer<typeof MediaSchema>;
+
+export const StockByWarehouseSchema = z.object({
+  warehouse: z.string(),
+  warehouseName: z.string(),
+  available: z.number(),
+  onHand: z.number().optional(),
+  reserved: z.number().optional(),
+});
+
+export const PartDetailSchema = PartSummarySchema.extend({
+  id: z.string(),
+  description: z.string(),
+  widthMm: z.number().nullable(),
+  heightMm: z.number().nullable(),
+  depthMm: z.number().nullable(),
+  massKg: z.number(),
+  ipRating: z.string().nullable(),
+  supersededBy: z.object({ sku: z.string(), name: z.string() }).nullable(),
+  supersedes: z.array(z.object({ sku: z.string(), name: z.string() })),
+  dangerousGoods: DangerousGoodsSchema.nullable(),
+  attributes: z.record(z.string(), z.unknown()),
+  compliance: z.record(z.string(), z.unknown()).nullable(),
+  supplierSkus: z.array(z.object({ supplier: z.string(), sku: z.string() })).optional(),
+  /** Only for roles that may see costs. */
+  costCents: z.number().nullable().optional(),
+  media: z.array(MediaSchema),
+  stock: z.array(StockByWarehouseSchema),
+  archived: z.boolean(),
+  updatedAt: z.string(),
+  abilities: z.object({ edit: z.boolean(), viewCost: z.boolean() }),
+});
+export type PartDetail = z.infer<typeof PartDetailSchema>;
+
+export const MakerSchema = z.object({ code: z.string(), name: z.string(), country: z.string().nullable(), parts: z.number() });
+export type Maker = z.infer<typeof MakerSchema>;
+
+export const RangeSummarySchema = z.object({
+  id: z.string(),
+  code: z.string(),
+  name: z.string(),
+  maker: z.string(),
+  makerName: z.string(),
+  connection: z.enum(['series', 'parallel']),
+  minModules: z.number(),
+  maxModules: z.number(),
+  maxStacks: z.number(),
+  controllerSku: z.string(),
+  moduleSku: z.string(),
+});
+export type RangeSummary = z.infer<typeof RangeSummarySchema>;

@@ -1,0 +1,39 @@
+export const ROLES = ['admin', 'purchasing', 'warehouse', 'sales', 'installer'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: 'Administrator',
+  purchasing: 'Purchasing',
+  warehouse: 'Warehouse',
+  sales: 'Trade desk',
+  installer: 'Installer',
+};
+
+const staff: Role[] = ['admin', 'purchasing', 'warehouse', 'sales'];
+const everyone: Role[] = [...ROLES];
+
+/**
+ * Who may do what. The server checks these in services; the client only uses them
+ * (through `abilities` on /api/me) to hide what the actor cannot do.
+ */
+export const ABILITIES = {
+  'users.manage': ['admin'],
+  'settings.manage': ['admin'],
+  'catalogue.view': everyone,
+  'catalogue.edit': ['admin', 'purchasing'],
+  'costs.view': ['admin', 'purchasing', 'sales'],
+  'ranges.edit': ['admin', 'purchasing'],
+  'plans.create': ['admin', 'purchasing', 'sales', 'installer'],
+  'stock.view': staff,
+  'suppliers.view': ['admin', 'purchasing', 'warehouse', 'sales'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Ability = keyof typeof ABILITIES;
+
+export function can(role: Role, ability: Ability): boolean {
+  return (ABILITIES[ability] as readonly Role[]).includes(role);
+}
+
+export function abilitiesOf(role: Role): Ability[] {
+  return (Object.keys(ABILITIES) as Ability[]).filter((a) => can(role, a));
+}

@@ -1,0 +1,66 @@
+import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+
+const control =
+  'w-full rounded-md border border-line bg-card px-2.5 py-1.5 text-sm text-ink placeholder:text-ink-soft/60 aria-[invalid=true]:border-danger';
+
+interface FieldProps {
+  label: string;
+  error?: string;
+  hint?: ReactNode;
+  mono?: boolean;
+}
+
+/** A labelled input with its error under it; the error is announced and linked by aria-describedby. */
+export const TextField = forwardRef<HTMLInputElement, FieldProps & InputHTMLAttributes<HTMLInputElement>>(function TextField(
+  { label, error, hint, mono, className = '', id, ...props },
+  ref,
+) {
+  const autoId = useId();
+  const inputId = id ?? autoId;
+  return (
+    <div className={className}>
+      <label htmlFor={inputId} className="mb-1 block text-xs font-semibold text-ink-soft">
+        {label}
+      </label>
+      <input
+        ref={ref}
+        id={inputId}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${inputId}-error` : undefined}
+        className={`${control} ${mono ? 'num' : ''}`}
+        {...props}
+      />
+      {hint && !error && <p className="mt-1 text-xs text-ink-soft">{hint}</p>}
+      {error && <FieldError id={`${inputId}-error`}>{error}</FieldError>}
+    </div>
+  );
+});
+
+export const SelectField = forwardRef<HTMLSelectElement, FieldProps & SelectHTMLAttributes<HTMLSelectElement>>(function SelectField(
+  { label, error, hint, className = '', id, children, ...props },
+  ref,
+) {
+  const autoId = useId();
+  const selectId = id ?? autoId;
+  return (
+    <div className={className}>
+      <label htmlFor={selectId} className="mb-1 block text-xs font-semibold text-ink-soft">
+        {label}
+      </label>
+      <select ref={ref} id={selectId} aria-invalid={error ? true : undefined} aria-describedby={error ? `${selectId}-error` : undefined} className={control} {...props}>
+        {children}
+      </select>
+      {hint && !error && <p className="mt-1 text-xs text-ink-soft">{hint}</p>}
+      {error && <FieldError id={`${selectId}-error`}>{error}</FieldError>}
+    </div>
+  );
+});
+
+export function FieldError({ id, children }: { id?: string; children: ReactNode }) {
+  return (
+    <p id={id} role="alert" className="mt-1 flex items-start gap-1 text-xs font-medium text-danger">
+      <span aria-hidden="true">✕</span>
+      {children}
+    </p>
+  );
+}
