@@ -21,6 +21,8 @@ import type { FileStore } from './storage/files.ts';
 import { systemRoutes } from './routes/system.ts';
 import { userRoutes } from './routes/users.ts';
 import { partRoutes } from './routes/parts.ts';
+import { stackPlanRoutes } from './routes/stack-plans.ts';
+import { createPlannerService, type PlannerService } from './services/planner.ts';
 
 export interface AppOptions {
   db: Db;
@@ -38,6 +40,7 @@ export interface AppDeps extends AppOptions {
   partsIndex: PartsIndex;
   catalogue: CatalogueService;
   media: MediaService;
+  planner: PlannerService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks and benchmarks. */
@@ -49,6 +52,7 @@ export function createServices(options: AppOptions): AppDeps {
     users: createUserService(options),
     catalogue: createCatalogueService({ db: options.db, partsIndex }),
     media: createMediaService({ db: options.db, files: options.files }),
+    planner: createPlannerService({ db: options.db }),
   };
 }
 
@@ -97,6 +101,7 @@ export function createApp(options: AppOptions) {
   systemRoutes(api, deps);
   userRoutes(api, deps);
   partRoutes(api, deps);
+  stackPlanRoutes(api, deps);
   router.get('/openapi.json', (_req, res) => {
     res.json(api.document());
   });

@@ -51,11 +51,6 @@ function compareFacetKeys(a: FacetKey, b: FacetKey): number {
   return a.key < b.key ? -1 : a.key > b.key ? 1 : 0;
 }
 
-function hasSelected(ids: Set<number>, selected: DocBits): boolean {
-  for (const id of ids) if (selected[id]) return true;
-  return false;
-}
-
 export class FacetField {
   /** Documents where the attribute exists, for EXISTS. */
   readonly present = new Set<number>();
@@ -63,8 +58,8 @@ export class FacetField {
   /** First original spelling of each value, which facetDistribution reports. */
   readonly #labels = new Map<string, string>();
   readonly #idsByNumber = new Map<number, Set<number>>();
-  /** #idsByNumber in numeric order; Map lookups with float keys are too slow for range scans. */
-  #sortedNumbers: [value: number, ids: Set<number>][] | null = null;
+  /** One (value, id) pair per number held, in numeric order, for range scans and stats. */
+  #numberIndex: { values: Float64Array; ids: Int32Array } | null = null;
   #sortedKeys: string[] | null = null;
 
   constructor(readonly attribute: string) {}
@@ -79,7 +74,10 @@ export class FacetField {
         this.#labels.set(key, String(leaf));
         this.#sortedKeys = null;
       }
-      if (typeof leaf === 'number' && addId(this.#idsByNumber, leaf, id)) this.#sortedNumbers = null;
+      if (typeof leaf === 'number') {
+        addId(this.#idsByNumber, leaf, id);
+        this.#numberIndex = null;
+      }
     }
   }
 
@@ -91,7 +89,10 @@ export class FacetField {
         this.#labels.delete(key);
         this.#sortedKeys = null;
       }
-      if (typeof leaf === 'number' && removeId(this.#idsByNumber, leaf, id)) this.#sortedNumbers = null;
+      if (typeof leaf === 'number') {
+        removeId(this.#idsByNumber, leaf, id);
+        this.#numberIndex = null;
+      }
     }
   }
 
@@ -103,17 +104,14 @@ export class FacetField {
   }
 
   /** Documents holding a number within the bounds; comparisons only apply to numbers. */
-  between(min: number, max: number, includeMin: boolean, includeMax: boolean): Set<number>[] {
-    const numbers = this.#numbers();
-    const sets: Set<number>[] = [];
-    for (let i = lowerBound(numbers, min); i < numbers.length; i++) {
-      const [value, ids] = numbers[i];
-      if (value > max || (value === max && !includeMax)) break;
-      if (value !== min || includeMin) sets.push(ids);
-    }
-    return sets;
+  between(min: number, max: number, includeMin: boolean, includeMax: boolean): Iterable<number> {
+    const { values, ids } = this.#numbers();
+    const start = includeMin ? firstAtLeast(values, min) : firstAbove(values, min);
+    const end = includeMax ? firstAbove(values, max) : firstAtLeast(values, max);
+    return ids.subarray(start, Math.max(start, end));
   }
 
+  /** Value counts over the selected documents, as Meilisearch's facetDistribution. */
   distribution(selected: DocBits, maxValues: number, order: 'alpha' | 'count'): Record<string, number> {
     const counted: [key: string, count: number][] = [];
     for (const key of this.#keys()) {
@@ -126,16 +124,18 @@ export class FacetField {
     }
     // The sort is stable, so values with equal counts stay alphabetical.
     if (order === 'count') counted.sort((a, b) => b[1] - a[1]);
-    return Object.fromEntries(counted.slice(0, maxValues).map(([key, count]) => [this.#labels.get(key)!, count]));
+    return Object.fromEntries(counted.slice(0, maxValues).map(([key, count]) => [this.#labels.get(key), count]));
   }
 
   /** Lowest and highest number among the selected documents, for facetStats. */
   stats(selected: DocBits): { min: number; max: number } | undefined {
-    const numbers = this.#numbers();
-    const hit = ([, ids]: [number, Set<number>]) => hasSelected(ids, selected);
-    const min = numbers.find(hit);
-    if (min === undefined) return undefined;
-    return { min: min[0], max: numbers.findLast(hit)![0] };
+    const { values, ids } = this.#numbers();
+    let low = 0;
+    while (low < ids.length && !selected[ids[low]]) low++;
+    if (low === ids.length) return undefined;
+    let high = ids.length - 1;
+    while (!selected[ids[high]]) high--;
+    return { min: values[low], max: values[high] };
   }
 
   #keys(): string[] {
@@ -146,18 +146,44 @@ export class FacetField {
     return this.#sortedKeys;
   }
 
-  #numbers(): [value: number, ids: Set<number>][] {
-    this.#sortedNumbers ??= [...this.#idsByNumber.entries()].sort((a, b) => a[0] - b[0]);
-    return this.#sortedNumbers;
+  #numbers(): { values: Float64Array; ids: Int32Array } {
+    if (!this.#numberIndex) {
+      const entries = [...this.#idsByNumber].sort((a, b) => a[0] - b[0]);
+      const total = entries.reduce((sum, [, ids]) => sum + ids.size, 0);
+      const values = new Float64Array(total);
+      const ids = new Int32Array(total);
+      let i = 0;
+      for (const [value, holders] of entries) {
+        for (const id of holders) {
+          values[i] = value;
+          ids[i++] = id;
+        }
+      }
+      this.#numberIndex = { values, ids };
+    }
+    return this.#numberIndex;
   }
 }
 
-function lowerBound(sorted: [value: number, ids: Set<number>][], target: number): number {
+/** Index of the first value >= target in ascending `values`. */
+function firstAtLeast(values: Float64Array, target: number): number {
   let low = 0;
-  let high = sorted.length;
+  let high = values.length;
   while (low < high) {
     const mid = (low + high) >> 1;
-    if (sorted[mid][0] < target) low = mid + 1;
+    if (values[mid] < target) low = mid + 1;
+    else high = mid;
+  }
+  return low;
+}
+
+/** Index of the first value > target in ascending `values`. */
+function firstAbove(values: Float64Array, target: number): number {
+  let low = 0;
+  let high = values.length;
+  while (low < high) {
+    const mid = (low + high) >> 1;
+    if (values[mid] <= target) low = mid + 1;
     else high = mid;
   }
   return low;

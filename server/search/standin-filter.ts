@@ -237,26 +237,26 @@ export type FilterSource = {
   field(attribute: string): FacetField;
 };
 
-function bitsOfSets(sets: Set<number>[], size: number): DocBits {
+function bitsOfSets(sets: Iterable<number>[], size: number): DocBits {
   const bits = new Uint8Array(size);
   for (const ids of sets) for (const id of ids) bits[id] = 1;
   return bits;
 }
 
-function comparisonSets(field: FacetField, op: Comparison, value: string): Set<number>[] {
+function comparisonSets(field: FacetField, op: Comparison, value: string): Iterable<number>[] {
   if (op === '=') return field.equalTo(value);
   const number = parseNumber(value);
   if (number === undefined) return [];
-  if (op === '>') return field.between(number, Infinity, false, true);
-  if (op === '>=') return field.between(number, Infinity, true, true);
-  if (op === '<') return field.between(-Infinity, number, true, false);
-  return field.between(-Infinity, number, true, true);
+  if (op === '>') return [field.between(number, Infinity, false, true)];
+  if (op === '>=') return [field.between(number, Infinity, true, true)];
+  if (op === '<') return [field.between(-Infinity, number, true, false)];
+  return [field.between(-Infinity, number, true, true)];
 }
 
-function rangeSets(field: FacetField, from: string, to: string): Set<number>[] {
+function rangeSets(field: FacetField, from: string, to: string): Iterable<number>[] {
   const min = parseNumber(from);
   const max = parseNumber(to);
-  return min === undefined || max === undefined ? [] : field.between(min, max, true, true);
+  return min === undefined || max === undefined ? [] : [field.between(min, max, true, true)];
 }
 
 export function evaluateFilter(node: FilterNode, source: FilterSource): DocBits {

@@ -38,9 +38,13 @@ type Quality = (typeof Quality)[keyof typeof Quality];
 
 const SEPARATORS = /[^\p{L}\p{N}]+/u;
 
+const NON_ASCII = /[^\u0000-\u007f]/;
+
 /** Case- and accent-insensitive form used for terms and facet values, as Meilisearch normalizes. */
 export function normalizeText(text: string): string {
-  return text.normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase();
+  const lower = text.toLowerCase();
+  // Decomposing is only needed to strip accents, and ASCII has none; this is the hot path.
+  return NON_ASCII.test(lower) ? lower.normalize('NFKD').replace(/\p{M}/gu, '') : lower;
 }
 
 export function isPlainObject(value: unknown): value is Json {

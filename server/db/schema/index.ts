@@ -2,3 +2,4 @@ export * from './auth.ts';
 export * from './companies.ts';
 export * from './catalogue.ts';
 export * from './stock.ts';
+export * from './plans.ts';

@@ -1,0 +1,93 @@
+import { z } from 'zod';
+import Papa from 'papaparse';
+import { InverterOptionSchema, RangeDetailSchema, RangeInputSchema, SavedPlanSchema, SavePlanSchema, StackPlanRequestSchema, StackPlanSchema, type StackPlanResult } from '@shared/contracts/stack-plans.ts';
+import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
+import { neutraliseRow } from '@shared/domain/csv-safety.ts';
+import type { Response } from 'express';
+import type { Api } from '../http/route.ts';
+import type { AppDeps } from '../app.ts';
+import { renderPlanPdf } from '../documents/plan-pdf.ts';
+import { presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.ts';
+
+const IdParams = z.object({ id: z.string().min(1).max(64) });
+
+function sendBomCsv(res: Response, plan: StackPlanResult, fileName: string) {
+  const csv = Papa.unparse(
+    plan.bom.map((l) =>
+      neutraliseRow({
+        SKU: l.sku,
+        Part: l.name,
+        Category: CATEGORY_LABELS[l.category as CategoryCode] ?? l.category,
+        'Qty (units)': l.qtyUnits,
+        'Pack size': l.packSize,
+        Packs: l.packs,
+        Available: l.available,
+        Short: l.short,
+        Why: l.reason,
+      }),
+    ),
+  );
+  res.setHeader('content-type', 'text/csv; charset=utf-8');
+  res.setHeader('content-disposition', `attachment; filename="${fileName}.csv"`);
+  res.send(`\uFEFF${csv}\r\n`);
+}
+
+async function sendPlanPdf(res: Response, plan: StackPlanResult, title: string, fileName: string, preparedFor?: string) {
+  const pdf = await renderPlanPdf(plan, { title, preparedFor, date: new Date() });
+  res.setHeader('content-type', 'application/pdf');
+  res.setHeader('content-disposition', `inline; filename="${fileName}.pdf"`);
+  res.send(pdf);
+}
+
+const fileStem = (s: string) => s.replace(/[^\w-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'stack-plan';
+
+export function stackPlanRoutes(api: Api, { planner }: AppDeps) {
+  api.route({ method: 'post', path: '/stack-plans', summary: 'Plan a stack: figures, cautions and a BOM with availability', tag: 'planner', body: StackPlanRequestSchema, response: z.object({ data: StackPlanSchema }) }, async ({ actor, body }) => ({
+    data: await planner.plan(actor, body),
+  }));
+
+  api.route({ method: 'post', path: '/stack-plans/bom.csv', summary: 'The BOM of a plan as CSV', tag: 'planner', body: StackPlanRequestSchema, produces: 'text/csv' }, async ({ actor, body, res }) => {
+    const plan = await planner.plan(actor, body);
+    sendBomCsv(res, plan, `bom-${fileStem(plan.rangeName)}-${plan.stacks}x${plan.modulesPerStack}`);
+  });
+
+  api.route({ method: 'post', path: '/stack-plans/plan.pdf', summary: 'A plan as a printable PDF', tag: 'planner', body: StackPlanRequestSchema, produces: 'application/pdf' }, async ({ actor, body, res }) => {
+    const plan = await planner.plan(actor, body);
+    await sendPlanPdf(res, plan, `${plan.rangeName}: ${plan.stacks} × ${plan.modulesPerStack} modules`, `plan-${fileStem(plan.rangeName)}`);
+  });
+
+  api.route({ method: 'post', path: '/stack-plans/saved', summary: 'Save a plan as a draft for a customer account', tag: 'planner', body: SavePlanSchema, response: z.object({ data: SavedPlanSchema }), status: 201 }, async ({ actor, body }) => ({
+    data: presentSavedPlan(await planner.save(actor, body)),
+  }));
+
+  api.route({ method: 'get', path: '/stack-plans/saved', summary: 'Saved plans (installers: their own company only)', tag: 'planner', response: z.object({ data: z.array(SavedPlanSchema) }) }, async ({ actor }) => ({
+    data: (await planner.listPlans(actor)).map(presentSavedPlan),
+  }));
+
+  api.route({ method: 'get', path: '/stack-plans/saved/:id', summary: 'One saved plan, recomputed with today’s availability', tag: 'planner', params: IdParams, response: z.object({ data: SavedPlanSchema.extend({ plan: StackPlanSchema }) }) }, async ({ actor, params }) => {
+    const saved = await planner.findPlan(actor, params.id);
+    const plan = await planner.plan(actor, StackPlanRequestSchema.parse(saved.request));
+    return { data: { ...presentSavedPlan(saved), plan } };
+  });
+
+  for (const format of ['bom.csv', 'plan.pdf'] as const) {
+    api.route({ method: 'get', path: `/stack-plans/saved/:id/${format}`, summary: format === 'bom.csv' ? 'A saved plan’s BOM as CSV' : 'A saved plan as PDF', tag: 'planner', params: IdParams, produces: format === 'bom.csv' ? 'text/csv' : 'application/pdf' }, async ({ actor, params, res }) => {
+      const saved = await planner.findPlan(actor, params.id);
+      const plan = await planner.plan(actor, StackPlanRequestSchema.parse(saved.request));
+      if (format === 'bom.csv') sendBomCsv(res, plan, `bom-${fileStem(saved.name)}`);
+      else await sendPlanPdf(res, plan, saved.name, `plan-${fileStem(saved.name)}`, saved.companyName);
+    });
+  }
+
+  api.route({ method: 'get', path: '/ranges/:id', summary: 'A range with its rules and everything the planner needs', tag: 'planner', params: IdParams, response: z.object({ data: RangeDetailSchema }) }, async ({ actor, params }) => ({
+    data: presentRangeDetail(await planner.rangeDetail(actor, params.id)),
+  }));
+
+  api.route({ method: 'put', path: '/ranges/:id', summary: 'Change a range and its BOM rules', tag: 'planner', params: IdParams, body: RangeInputSchema, response: z.object({ data: RangeDetailSchema }) }, async ({ actor, params, body }) => ({
+    data: presentRangeDetail(await planner.updateRange(actor, params.id, body)),
+  }));
+
+  api.route({ method: 'get', path: '/inverters', summary: 'Inverters with their battery windows', tag: 'planner', response: z.object({ data: z.array(InverterOptionSchema) }) }, async ({ actor }) => ({
+    data: await planner.inverters(actor),
+  }));
+}

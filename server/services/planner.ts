@@ -1,0 +1,253 @@
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import type { Db } from '../db/client.ts';
+import { companies, makers, parts, rangeInverters, ranges, stackPlans, stockLevels, user, warehouses } from '../db/schema/index.ts';
+import { authorize, type Actor } from '../policies/actor.ts';
+import { can } from '@shared/roles.ts';
+import { NotFoundError, ValidationError } from '../errors.ts';
+import { planStack, type PlannerInverter, type PlannerPart, type PlannerRange, type PlannerUnit } from '@shared/domain/planner.ts';
+import { BomRulesSchema, unknownRuleSkus } from '@shared/domain/bom-rules.ts';
+import type { RangeInput, SavePlanInput, StackPlanRequest } from '@shared/contracts/stack-plans.ts';
+
+type PartRow = typeof parts.$inferSelect;
+const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+function unitFrom(p: PartRow): PlannerUnit {
+  const a = p.attributes as Record<string, unknown>;
+  const n = (k: string) => (typeof a[k] === 'number' ? (a[k] as number) : null);
+  const carriesCells = p.category === 'module' || a.carriesCells === true;
+  return {
+    sku: p.sku,
+    name: p.name,
+    nominalV: n('nominalV') ?? 0,
+    ratedAh: n('ratedAh') ?? 0,
+    usableKwh: n('usableKwh'),
+    cellsInSeries: n('cellsInSeries'),
+    minOperatingV: n('minOperatingV'),
+    maxChargeV: n('maxChargeV'),
+    heightMm: p.heightMm ?? 0,
+    widthMm: p.widthMm ?? 0,
+    depthMm: p.depthMm ?? 0,
+    massKg: p.massKg,
+    cycleLife: n('cycleLife'),
+    eolSohPct: n('eolSohPct'),
+    warrantedMwh: n('warrantedMwh'),
+    roundTripEfficiencyPct: n('roundTripEfficiencyPct'),
+    carriesCells,
+  };
+}
+
+function inverterFrom(p: PartRow): PlannerInverter {
+  const a = p.attributes as Record<string, number | undefined>;
+  return { sku: p.sku, name: p.name, batteryMinV: a.batteryMinV ?? 0, batteryMaxV: a.batteryMaxV ?? 0, batteryInputs: a.batteryInputs ?? 1, maxBatteryKwh: a.maxBatteryKwh ?? null };
+}
+
+const plannerPart = (p: PartRow): PlannerPart => ({ sku: p.sku, name: p.name, category: p.category, packSize: p.packSize, massKg: p.massKg });
+
+export function createPlannerService({ db }: { db: Db }) {
+  /** A range with every part its planner needs: controller, module, rule parts and compatible inverters. */
+  async function loadRange(idOrCode: string) {
+    const [row] = await db
+      .select({ range: ranges, makerCode: makers.code, makerName: makers.name })
+      .from(ranges)
+      .innerJoin(makers, eq(makers.id, ranges.makerId))
+      .where(UUID_RE.test(idOrCode) ? eq(ranges.id, idOrCode) : eq(ranges.code, idOrCode));
+    if (!row) throw new NotFoundError('That range');
+    const r = row.range;
+    const rules = BomRulesSchema.parse(r.rules);
+    const ruleSkus = rules.map((x) => x.sku);
+    const [unitRows, ruleRows, inverterRows] = await Promise.all([
+      db.select().from(parts).where(inArray(parts.id, [r.controllerId, r.moduleId])),
+      ruleSkus.length ? db.select().from(parts).where(inArray(parts.sku, ruleSkus)) : Promise.resolve([]),
+      db.select({ part: parts }).from(rangeInverters).innerJoin(parts, eq(parts.id, rangeInverters.inverterId)).where(eq(rangeInverters.rangeId, r.id)).orderBy(asc(parts.sku)),
+    ]);
+    const controller = unitRows.find((p) => p.id === r.controllerId)!;
+    const module = unitRows.find((p) => p.id === r.moduleId)!;
+    const partsBySku: Record<string, PlannerPart> = {};
+    for (const p of [controller, module, ...ruleRows]) partsBySku[p.sku] = plannerPart(p);
+    const planner: PlannerRange = {
+      id: r.id,
+      name: r.name,
+      connection: r.connection,
+      minModules: r.minModules,
+      maxModules: r.maxModules,
+      maxStacks: r.maxStacks,
+      baseHeightMm: r.baseHeightMm,
+      defaultDodPct: r.defaultDodPct,
+      controller: unitFrom(controller),
+      module: unitFrom(module),
+      rules,
+    };
+    return { row: r, makerCode: row.makerCode, makerName: row.makerName, planner, parts: partsBySku, inverters: inverterRows.map((x) => x.part), controller, module };
+  }
+
+  async function findInverter(sku: string) {
+    const [p] = await db.select().from(parts).where(eq(parts.sku, sku.toUpperCase()));
+    if (!p) throw new NotFoundError(`Inverter ${sku}`);
+    if (p.category !== 'inverter') throw new ValidationError(`${p.sku} is not an inverter.`, { fields: [{ path: 'inverterSku', message: 'Choose an inverter.' }] });
+    return inverterFrom(p);
+  }
+
+  /** Available (on hand − reserved) per SKU and warehouse. */
+  async function availability(skus: string[]) {
+    if (skus.length === 0) return new Map<string, { warehouse: string; available: number }[]>();
+    const rows = await db
+      .select({ sku: parts.sku, warehouse: warehouses.code, available: sql<number>`sum(${stockLevels.onHand} - ${stockLevels.reserved})::int` })
+      .from(stockLevels)
+      .innerJoin(parts, eq(parts.id, stockLevels.partId))
+      .innerJoin(warehouses, eq(warehouses.id, stockLevels.warehouseId))
+      .where(inArray(parts.sku, skus))
+      .groupBy(parts.sku, warehouses.code, warehouses.rank)
+      .orderBy(asc(warehouses.rank));
+    const out = new Map<string, { warehouse: string; available: number }[]>();
+    for (const r of rows) out.set(r.sku, [...(out.get(r.sku) ?? []), { warehouse: r.warehouse, available: r.available }]);
+    return out;
+  }
+
+  async function plan(actor: Actor, input: StackPlanRequest) {
+    authorize(actor, 'plans.create');
+    const [loaded, inverter] = await Promise.all([loadRange(input.rangeId), input.inverterSku ? findInverter(input.inverterSku) : Promise.resolve(null)]);
+    const result = planStack({ range: loaded.planner, parts: loaded.parts, modules: input.modules, targetUsableKwh: input.targetUsableKwh, inverter, stacks: input.stacks });
+    if (!result.ok) throw new ValidationError(result.error.message, { code: result.error.code, ...result.error.details });
+    const p = result.plan;
+    const stock = await availability(p.bom.map((l) => l.sku));
+    return {
+      ...p,
+      rangeId: loaded.row.id,
+      rangeName: loaded.row.name,
+      inverterSku: inverter?.sku ?? null,
+      unitWidthMm: Math.max(loaded.planner.controller.widthMm, loaded.planner.module.widthMm),
+      bom: p.bom.map((l) => {
+        const per = stock.get(l.sku) ?? [];
+        const available = per.reduce((s, w) => s + w.available, 0);
+        return { ...l, availability: per, available, short: Math.max(0, l.qtyUnits - available) };
+      }),
+    };
+  }
+
+  const planColumns = {
+    id: stackPlans.id,
+    name: stackPlans.name,
+    status: stackPlans.status,
+    companyId: stackPlans.companyId,
+    companyName: companies.name,
+    siteSuburb: stackPlans.siteSuburb,
+    sitePostcode: stackPlans.sitePostcode,
+    request: stackPlans.request,
+    summary: stackPlans.summary,
+    rangeName: ranges.name,
+    createdBy: user.name,
+    createdAt: stackPlans.createdAt,
+  };
+
+  /** Installers only ever see their own company's plans: anything else is "not found". */
+  const visibleTo = (actor: Actor) => (actor.role === 'installer' ? eq(stackPlans.companyId, actor.companyId ?? '00000000-0000-0000-0000-000000000000') : undefined);
+
+  return {
+    loadRange,
+    plan,
+
+    async save(actor: Actor, input: SavePlanInput) {
+      authorize(actor, 'plans.create');
+      const result = await plan(actor, input.request);
+      // Installers plan for their own company; staff plan for a customer account they name.
+      let companyId = actor.role === 'installer' ? actor.companyId : null;
+      if (actor.role !== 'installer' && input.companyId) {
+        const [c] = await db.select().from(companies).where(and(eq(companies.id, input.companyId), eq(companies.kind, 'installer')));
+        companyId = c?.id ?? null;
+      }
+      if (!companyId) throw new ValidationError('Choose the customer account this plan is for.', { fields: [{ path: 'companyId', message: 'Choose a customer account.' }] });
+      const summary = { usableKwh: result.usableKwh, modulesPerStack: result.modulesPerStack, stacks: result.stacks, dvc: result.dvc };
+      const [row] = await db
+        .insert(stackPlans)
+        .values({ companyId, name: input.name, siteSuburb: input.siteSuburb ?? null, sitePostcode: input.sitePostcode ?? null, rangeId: result.rangeId, request: input.request, summary, createdBy: actor.userId })
+        .returning({ id: stackPlans.id });
+      return this.findPlan(actor, row!.id);
+    },
+
+    async listPlans(actor: Actor) {
+      authorize(actor, 'plans.create');
+      return db
+        .select(planColumns)
+        .from(stackPlans)
+        .innerJoin(companies, eq(companies.id, stackPlans.companyId))
+        .innerJoin(ranges, eq(ranges.id, stackPlans.rangeId))
+        .innerJoin(user, eq(user.id, stackPlans.createdBy))
+        .where(visibleTo(actor))
+        .orderBy(desc(stackPlans.createdAt))
+        .limit(200);
+    },
+
+    async findPlan(actor: Actor, id: string) {
+      authorize(actor, 'plans.create');
+      if (!UUID_RE.test(id)) throw new NotFoundError('That plan');
+      const [row] = await db
+        .select(planColumns)
+        .from(stackPlans)
+        .innerJoin(companies, eq(companies.id, stackPlans.companyId))
+        .innerJoin(ranges, eq(ranges.id, stackPlans.rangeId))
+        .innerJoin(user, eq(user.id, stackPlans.createdBy))
+        .where(and(eq(stackPlans.id, id), visibleTo(actor)));
+      if (!row) throw new NotFoundError('That plan');
+      return row;
+    },
+
+    async rangeDetail(actor: Actor, idOrCode: string) {
+      authorize(actor, 'catalogue.view');
+      const r = await loadRange(idOrCode);
+      return { ...r, canEdit: can(actor.role, 'ranges.edit') };
+    },
+
+    async inverters(actor: Actor) {
+      authorize(actor, 'catalogue.view');
+      const rows = await db.select({ part: parts, makerName: makers.name }).from(parts).innerJoin(makers, eq(makers.id, parts.makerId)).where(and(eq(parts.category, 'inverter'), sql`${parts.archivedAt} is null`)).orderBy(asc(parts.name));
+      return rows.map(({ part, makerName }) => ({ ...inverterFrom(part), makerName, lifecycle: part.lifecycle }));
+    },
+
+    /** Saves a range's definition; a rule naming a part that does not exist cannot be saved. */
+    async updateRange(actor: Actor, idOrCode: string, input: RangeInput & { rules: ReturnType<typeof BomRulesSchema.parse> }) {
+      authorize(actor, 'ranges.edit');
+      const current = await loadRange(idOrCode);
+      const skus = [...new Set([input.controllerSku, input.moduleSku, ...input.inverterSkus, ...input.rules.map((r) => r.sku)].map((s) => s.toUpperCase()))];
+      const found = await db.select().from(parts).where(inArray(parts.sku, skus));
+      const bySku = new Map(found.map((p) => [p.sku, p]));
+      const fields: { path: string; message: string }[] = [];
+      const expect = (path: string, sku: string, category?: string) => {
+        const p = bySku.get(sku.toUpperCase());
+        if (!p) fields.push({ path, message: `There is no part ${sku}.` });
+        else if (category && p.category !== category) fields.push({ path, message: `${sku} is not a ${category}.` });
+      };
+      expect('controllerSku', input.controllerSku, 'controller');
+      expect('moduleSku', input.moduleSku, 'module');
+      input.inverterSkus.forEach((s, i) => expect(`inverterSkus.${i}`, s, 'inverter'));
+      const known = Object.fromEntries(found.map((p) => [p.sku, plannerPart(p)]));
+      for (const missing of unknownRuleSkus(input.rules, known)) {
+        const i = input.rules.findIndex((r) => r.sku === missing);
+        fields.push({ path: `rules.${i}.sku`, message: `There is no part ${missing}: a rule must name a catalogue part.` });
+      }
+      if (fields.length) throw new ValidationError('The range refers to parts that do not fit.', { fields });
+      await db.transaction(async (tx) => {
+        await tx
+          .update(ranges)
+          .set({
+            name: input.name,
+            connection: input.connection,
+            controllerId: bySku.get(input.controllerSku.toUpperCase())!.id,
+            moduleId: bySku.get(input.moduleSku.toUpperCase())!.id,
+            minModules: input.minModules,
+            maxModules: input.maxModules,
+            maxStacks: input.maxStacks,
+            baseHeightMm: input.baseHeightMm,
+            defaultDodPct: input.defaultDodPct,
+            rules: input.rules,
+            updatedAt: new Date(),
+          })
+          .where(eq(ranges.id, current.row.id));
+        await tx.delete(rangeInverters).where(eq(rangeInverters.rangeId, current.row.id));
+        if (input.inverterSkus.length) await tx.insert(rangeInverters).values(input.inverterSkus.map((s) => ({ rangeId: current.row.id, inverterId: bySku.get(s.toUpperCase())!.id })));
+      });
+      return this.rangeDetail(actor, current.row.id);
+    },
+  };
+}
+
+export type PlannerService = ReturnType<typeof createPlannerService>;
