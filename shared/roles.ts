@@ -26,6 +26,7 @@ export const ABILITIES = {
   'plans.create': ['admin', 'purchasing', 'sales', 'installer'],
   'stock.view': staff,
   'suppliers.view': ['admin', 'purchasing', 'warehouse', 'sales'],
+  'customers.view': staff,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Ability = keyof typeof ABILITIES;

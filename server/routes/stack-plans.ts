@@ -87,6 +87,10 @@ export function stackPlanRoutes(api: Api, { planner }: AppDeps) {
     data: presentRangeDetail(await planner.updateRange(actor, params.id, body)),
   }));
 
+  api.route({ method: 'get', path: '/customers', summary: 'Customer accounts (staff only)', tag: 'planner', response: z.object({ data: z.array(z.object({ id: z.string(), name: z.string() })) }) }, async ({ actor }) => ({
+    data: await planner.customers(actor),
+  }));
+
   api.route({ method: 'get', path: '/inverters', summary: 'Inverters with their battery windows', tag: 'planner', response: z.object({ data: z.array(InverterOptionSchema) }) }, async ({ actor }) => ({
     data: await planner.inverters(actor),
   }));

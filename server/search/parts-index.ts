@@ -32,10 +32,12 @@ export interface PartDocument {
   thumbnailId: string | null;
 }
 
-const SETTINGS = {
+export const PARTS_INDEX_SETTINGS = {
   searchableAttributes: ['sku', 'name', 'gtin', 'supplierSkus', 'makerName', 'categoryLabel', 'ranges', 'attributeText', 'description'],
   filterableAttributes: ['category', 'maker', 'ranges', 'lifecycle', 'inStock', 'archived', 'sku', 'gtin', 'supplierSkus'],
   sortableAttributes: ['sku', 'name', 'category', 'maker'],
+  // Totals and CSV exports page past Meilisearch's default cap of 1,000 hits.
+  pagination: { maxTotalHits: 20_000 },
 };
 
 /** Words a person might type for a part's attributes: "51.2 V", "LFP", "CAN". */
@@ -141,7 +143,7 @@ export function createPartsIndex(search: SearchClient) {
       await check(search.client.createIndex(PARTS_INDEX, { primaryKey: 'id' })).catch((e) => {
         if (!(e instanceof AppError)) throw e; // "index already exists" is a failed task we accept
       });
-      await check(index.updateSettings(SETTINGS));
+      await check(index.updateSettings(PARTS_INDEX_SETTINGS));
     },
 
     /** Re-sends the given parts (all when omitted) to the index, and waits until it has them. */

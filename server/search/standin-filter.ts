@@ -35,7 +35,7 @@ function readQuoted(input: string, start: number, code: string): { text: string;
   const quote = input[start];
   let text = '';
   for (let i = start + 1; i < input.length; i++) {
-    const char = input[i]!;
+    const char = input[i];
     if (char === quote) return { text, end: i + 1 };
     if (char === '\\' && i + 1 < input.length) i++;
     text += input[i];
@@ -43,11 +43,16 @@ function readQuoted(input: string, start: number, code: string): { text: string;
   throw syntaxError(code, `Expression is missing the closing \`${quote}\``, input, start);
 }
 
+function wordAt(input: string, at: number): string | undefined {
+  WORD.lastIndex = at;
+  return WORD.exec(input)?.[0];
+}
+
 function tokenize(input: string, code: string): Token[] {
   const tokens: Token[] = [];
   let i = 0;
   while (i < input.length) {
-    const char = input[i]!;
+    const char = input[i];
     if (/\s/.test(char)) {
       i++;
     } else if (char === '"' || char === "'") {
@@ -56,10 +61,8 @@ function tokenize(input: string, code: string): Token[] {
       i = end;
     } else {
       const symbol = SYMBOLS.find((s) => input.startsWith(s, i));
-      WORD.lastIndex = i;
-      const word = symbol ? null : WORD.exec(input);
-      if (!symbol && !word) throw syntaxError(code, `Unexpected character \`${char}\``, input, i);
-      const text = symbol ?? word![0];
+      const text = symbol ?? wordAt(input, i);
+      if (!text) throw syntaxError(code, `Unexpected character \`${char}\``, input, i);
       tokens.push({ kind: symbol ? 'symbol' : 'word', text, at: i });
       i += text.length;
     }
@@ -86,13 +89,13 @@ class Parser {
   #or(): FilterNode {
     const children = [this.#and()];
     while (this.#acceptKeyword('OR')) children.push(this.#and());
-    return children.length === 1 ? children[0]! : { kind: 'or', children };
+    return children.length === 1 ? children[0] : { kind: 'or', children };
   }
 
   #and(): FilterNode {
     const children = [this.#not()];
     while (this.#acceptKeyword('AND')) children.push(this.#not());
-    return children.length === 1 ? children[0]! : { kind: 'and', children };
+    return children.length === 1 ? children[0] : { kind: 'and', children };
   }
 
   #not(): FilterNode {
@@ -220,10 +223,10 @@ export function parseFilter(filter: unknown, code: string): FilterNode | null {
       return nonNull(parseFilterString(inner, code));
     });
     if (alternatives.length === 0) return [];
-    return [alternatives.length === 1 ? alternatives[0]! : { kind: 'or', children: alternatives }];
+    return [alternatives.length === 1 ? alternatives[0] : { kind: 'or', children: alternatives }];
   });
   if (children.length === 0) return null;
-  return children.length === 1 ? children[0]! : { kind: 'and', children };
+  return children.length === 1 ? children[0] : { kind: 'and', children };
 }
 
 function nonNull(node: FilterNode | null): FilterNode[] {
@@ -266,14 +269,14 @@ export function evaluateFilter(node: FilterNode, source: FilterSource): DocBits 
     case 'or': {
       const [result, ...rest] = node.children.map((child) => evaluateFilter(child, source));
       for (const bits of rest) {
-        if (node.kind === 'and') for (let i = 0; i < size; i++) result![i]! &= bits[i]!;
-        else for (let i = 0; i < size; i++) result![i]! |= bits[i]!;
+        if (node.kind === 'and') for (let i = 0; i < size; i++) result[i] &= bits[i];
+        else for (let i = 0; i < size; i++) result[i] |= bits[i];
       }
-      return result!;
+      return result;
     }
     case 'not': {
       const bits = evaluateFilter(node.child, source);
-      for (let i = 0; i < size; i++) bits[i] = source.live[i]! & (bits[i]! ^ 1);
+      for (let i = 0; i < size; i++) bits[i] = source.live[i] & (bits[i] ^ 1);
       return bits;
     }
     case 'compare':

@@ -1,8 +1,9 @@
 // One index of the search stand-in: stored documents (kept as the original JSON objects and
 // returned as hits), primary-key rules, and search with filters, facets, sorting and ranking.
 //
-// Documents get dense internal ids so filters and facets work on byte maps. The full-text index,
-// value maps and sort ranks are derived data, built on first use and dropped when invalidated.
+// Documents get dense internal ids so filters and facets work on byte maps. The full-text index
+// is brought up to date by every write, as Meilisearch indexes at write time, so searches never
+// pay for it; value maps and sort ranks are built on first use and dropped when invalidated.
 
 import { MeiliError, notFilterable } from './standin-errors.ts';
 import { bitsFromIds, FacetField, type DocBits } from './standin-facets.ts';
@@ -23,6 +24,7 @@ import {
   type Json,
   type Leaf,
   type TextMatches,
+  type TextSearchOptions,
 } from './standin-text.ts';
 
 export type SearchRequest = {
@@ -60,7 +62,7 @@ function now(): string {
 function inferPrimaryKey(doc: Json): string {
   // Meilisearch docs, "Primary key": inference looks for exactly one attribute ending in `id`.
   const candidates = Object.keys(doc).filter((key) => key.toLowerCase().endsWith('id'));
-  if (candidates.length === 1) return candidates[0]!;
+  if (candidates.length === 1) return candidates[0];
   const hint = 'Please specify the primary key manually using the `primaryKey` query parameter.';
   if (candidates.length === 0) {
     throw new MeiliError(
@@ -119,24 +121,24 @@ function byRank(ranks: Int32Array, descending: boolean): Compare<number> {
 
 function parseSortCriterion(expression: string, code: string): SortCriterion {
   const match = /^(.+):(asc|desc)$/.exec(expression);
-  if (!match || match[1]!.startsWith('_geo')) {
+  if (!match || match[1].startsWith('_geo')) {
     throw new MeiliError(
       400,
       code,
       `Invalid syntax for the sort parameter: expected expression ending by \`:asc\` or \`:desc\`, found \`${expression}\`.`,
     );
   }
-  return { attribute: match[1]!, descending: match[2] === 'desc' };
+  return { attribute: match[1], descending: match[2] === 'desc' };
 }
 
 function copyPath(source: Json, target: Json, [head, ...rest]: string[]): void {
-  if (!Object.hasOwn(source, head!)) return;
-  const value = source[head!];
+  if (!Object.hasOwn(source, head)) return;
+  const value = source[head];
   if (rest.length === 0) {
-    target[head!] = value;
+    target[head] = value;
   } else if (isPlainObject(value)) {
-    const child = isPlainObject(target[head!]) ? (target[head!] as Json) : (target[head!] = {});
-    copyPath(value, child as Json, rest);
+    if (!isPlainObject(target[head])) target[head] = {};
+    copyPath(value, target[head] as Json, rest);
   }
 }
 
@@ -147,21 +149,38 @@ function pickAttributes(doc: Json, attributes: string[]): Json {
 }
 
 /**
- * The first `count` ids in `compare` order, sorted. A bounded max-heap keeps this O(n log count):
- * a page needs only a few of possibly 50,000 matches.
+ * The first `count` ids ordered by the comparators in turn, then by internal id (document order,
+ * Meilisearch's final tie-break). A bounded max-heap keeps this O(n log count): a page needs only
+ * a few of possibly 50,000 matches.
  */
-function firstInOrder(ids: number[], count: number, compare: Compare<number>): number[] {
+function firstInOrder(ids: number[], count: number, comparators: Compare<number>[]): number[] {
+  // Ids are gathered in internal id order, which is already the answer without comparators.
+  if (comparators.length === 0) return ids.slice(0, count);
   if (count <= 0) return [];
+  const compare: Compare<number> = (a, b) => {
+    for (const comparator of comparators) {
+      const order = comparator(a, b);
+      if (order !== 0) return order;
+    }
+    return a - b;
+  };
   const heap: number[] = []; // heap[0] is the worst id kept so far
   const worse = (i: number, j: number) => compare(heap[i], heap[j]) > 0;
   const swap = (i: number, j: number) => ([heap[i], heap[j]] = [heap[j], heap[i]]);
   const siftUp = (i: number) => {
-    for (let parent = (i - 1) >> 1; i > 0 && worse(i, parent); i = parent, parent = (i - 1) >> 1) swap(i, parent);
+    while (i > 0) {
+      const parent = (i - 1) >> 1;
+      if (!worse(i, parent)) return;
+      swap(i, parent);
+      i = parent;
+    }
   };
   const siftDown = (i: number) => {
     for (;;) {
+      const left = 2 * i + 1;
       let worst = i;
-      for (const child of [2 * i + 1, 2 * i + 2]) if (child < heap.length && worse(child, worst)) worst = child;
+      if (left < heap.length && worse(left, worst)) worst = left;
+      if (left + 1 < heap.length && worse(left + 1, worst)) worst = left + 1;
       if (worst === i) return;
       swap(i, worst);
       i = worst;
@@ -209,6 +228,16 @@ export class StandinIndex {
 
   info(): { uid: string; primaryKey: string | null; createdAt: string; updatedAt: string } {
     return { uid: this.uid, primaryKey: this.primaryKey, createdAt: this.createdAt, updatedAt: this.updatedAt };
+  }
+
+  /** The parts of Meilisearch's index stats that describe documents; sizes are not modelled. */
+  stats(): Json {
+    const fieldDistribution: Record<string, number> = {};
+    for (const doc of this.#docs) {
+      if (!doc) continue;
+      for (const field of Object.keys(doc)) fieldDistribution[field] = (fieldDistribution[field] ?? 0) + 1;
+    }
+    return { numberOfDocuments: this.documentCount, isIndexing: false, fieldDistribution };
   }
 
   setPrimaryKey(primaryKey: string): void {
@@ -266,6 +295,7 @@ export class StandinIndex {
     this.#settings = next;
     if (changed('searchableAttributes') || changed('stopWords')) this.#text = null;
     if (changed('filterableAttributes')) this.#facets.clear();
+    this.#ensureTextIndex();
     this.updatedAt = now();
   }
 
@@ -289,7 +319,8 @@ export class StandinIndex {
     const limit = request.limit ?? DEFAULT_LIMIT;
     const matched = this.#selectedIds(bits);
     const sort = this.#parseSort(request.sort, 'invalid_document_sort');
-    const page = this.#rank(matched, null, sort, offset + limit).slice(offset);
+    const comparators = sort.map((criterion) => this.#byAttribute(criterion));
+    const page = firstInOrder(matched, offset + limit, comparators).slice(offset);
     const project = this.#projector(request.fields);
     return { results: page.map((id) => project(this.#docs[id]!)), offset, limit, total: matched.length };
   }
@@ -309,7 +340,7 @@ export class StandinIndex {
     const filterBits = filter ? evaluateFilter(filter, this.#filterSource('invalid_search_filter')) : null;
 
     const size = this.#docs.length;
-    const text = request.q ? this.#textIndex().search(request.q, size, this.#textOptions(request)) : null;
+    const text = request.q ? this.#ensureTextIndex().search(request.q, size, this.#textOptions(request)) : null;
     let matched: number[];
     let matchedBits: DocBits;
     if (text) {
@@ -323,7 +354,7 @@ export class StandinIndex {
     const response: Json = { hits: [], query: request.q ?? '', processingTimeMs: 0 };
     const window = this.#paginate(request, matched.length, response);
     const project = this.#projector(request.attributesToRetrieve);
-    const ranked = this.#rank(matched, text, sort, window.end);
+    const ranked = firstInOrder(matched, window.end, this.#rankingRules(text, sort));
     response.hits = ranked.slice(window.start, window.end).map((id) => project(this.#docs[id]!));
     if (request.facets) Object.assign(response, this.#facetSummary(facets, matchedBits));
     response.processingTimeMs = Math.round(performance.now() - started);
@@ -336,7 +367,7 @@ export class StandinIndex {
       return this.primaryKey;
     }
     if (requestedKey !== undefined) return requestedKey;
-    return documents.length > 0 ? inferPrimaryKey(documents[0]!) : null;
+    return documents.length > 0 ? inferPrimaryKey(documents[0]) : null;
   }
 
   #primaryKeyExists(): MeiliError {
@@ -390,6 +421,7 @@ export class StandinIndex {
     // Internal ids are never reused while documents remain; start afresh once the index is empty.
     if (this.documentCount === 0 && this.#docs.length > 0) this.clear();
     this.#sortRanks.clear();
+    this.#ensureTextIndex();
     this.updatedAt = now();
   }
 
@@ -402,7 +434,8 @@ export class StandinIndex {
     }
   }
 
-  #textIndex(): TextIndex {
+  /** The full-text index, rebuilt when settings or a newly seen attribute invalidated it. */
+  #ensureTextIndex(): TextIndex {
     if (!this.#text) {
       const searchable = this.#settings.searchableAttributes;
       const fields = searchable.includes('*') ? [...this.#fieldOrder] : searchable;
@@ -412,7 +445,7 @@ export class StandinIndex {
     return this.#text;
   }
 
-  #textOptions(request: SearchRequest) {
+  #textOptions(request: SearchRequest): TextSearchOptions {
     return {
       typoTolerance: this.#settings.typoTolerance,
       matchingStrategy: request.matchingStrategy ?? 'last',
@@ -484,11 +517,11 @@ export class StandinIndex {
   }
 
   /**
-   * The first `count` matches in ranking-rule order, like Meilisearch's bucket sort. Rules
-   * without a signal here (proximity, wordPosition) are skipped; internal id order breaks ties,
-   * as Meilisearch falls back to document order.
+   * Comparators for the ranking rules in order, like Meilisearch's bucket sort. Rules without a
+   * signal here (proximity, wordPosition) are skipped, and text rules do not apply to a
+   * placeholder search.
    */
-  #rank(matched: number[], text: TextMatches | null, sort: SortCriterion[], count: number): number[] {
+  #rankingRules(text: TextMatches | null, sort: SortCriterion[]): Compare<number>[] {
     const comparators: Compare<number>[] = [];
     for (const rule of this.#settings.rankingRules) {
       if (text && rule === 'words') comparators.push((a, b) => text.words[b] - text.words[a]);
@@ -501,15 +534,7 @@ export class StandinIndex {
         comparators.push(this.#byAttribute(parseSortCriterion(rule, 'invalid_settings_ranking_rules')));
       }
     }
-    // Matches are gathered in internal id order, which is already the final order without rules.
-    if (comparators.length === 0) return matched.slice(0, count);
-    return firstInOrder(matched, count, (a, b) => {
-      for (const compare of comparators) {
-        const order = compare(a, b);
-        if (order !== 0) return order;
-      }
-      return a - b;
-    });
+    return comparators;
   }
 
   #byAttribute({ attribute, descending }: SortCriterion): Compare<number> {
@@ -529,7 +554,7 @@ export class StandinIndex {
     const ranks = new Int32Array(this.#docs.length).fill(-1);
     let rank = 0;
     entries.forEach(([id, value], i) => {
-      if (i > 0 && compareSortValues(entries[i - 1]![1], value) !== 0) rank++;
+      if (i > 0 && compareSortValues(entries[i - 1][1], value) !== 0) rank++;
       ranks[id] = rank;
     });
     this.#sortRanks.set(attribute, ranks);

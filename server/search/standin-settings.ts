@@ -3,6 +3,7 @@
 
 import { z } from 'zod';
 import { MeiliError, snakeCase } from './standin-errors.ts';
+import { isPlainObject, type Json } from './standin-text.ts';
 
 export type TypoTolerance = {
   enabled: boolean;
@@ -165,12 +166,6 @@ export function parseSettings(body: unknown): SettingsPatch {
     patch[name] = value;
   }
   return patch;
-}
-
-type Json = Record<string, unknown>;
-
-function isPlainObject(value: unknown): value is Json {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
 
 function mergeSettingsObject(current: Json, patch: Json, defaults: Json): Json {

@@ -37,6 +37,7 @@ const Quality = { None: 0, Typo: 1, Prefix: 2, Exact: 3 } as const;
 type Quality = (typeof Quality)[keyof typeof Quality];
 
 const SEPARATORS = /[^\p{L}\p{N}]+/u;
+const MAX_QUERY_WORDS = 10;
 
 const NON_ASCII = /[^\u0000-\u007f]/;
 
@@ -71,8 +72,8 @@ function collectAt(value: unknown, segments: string[], depth: number, out: Leaf[
     for (const item of value) found = collectAt(item, segments, depth, out) || found;
     return found;
   }
-  if (!isPlainObject(value) || !Object.hasOwn(value, segments[depth]!)) return false;
-  return collectAt(value[segments[depth]!], segments, depth + 1, out);
+  if (!isPlainObject(value) || !Object.hasOwn(value, segments[depth])) return false;
+  return collectAt(value[segments[depth]], segments, depth + 1, out);
 }
 
 /**
@@ -86,13 +87,14 @@ export function valuesAt(doc: Json, path: string): { present: boolean; leaves: L
 }
 
 function typoBudget(term: string, typo: TypoTolerance): number {
-  if (!typo.enabled || typo.disableOnWords.includes(term)) return 0;
+  if (!typo.enabled || typo.disableOnWords.some((word) => normalizeText(word) === term)) return 0;
   if (typo.disableOnNumbers && /^\d+$/.test(term)) return 0;
   if (term.length >= typo.minWordSizeForTypos.twoTypos) return 2;
   return term.length >= typo.minWordSizeForTypos.oneTypo ? 1 : 0;
 }
 
-// Meilisearch counts swapping two adjacent letters as one typo; Levenshtein distance counts two.
+// Meilisearch counts swapping two adjacent letters as one typo (Damerau-Levenshtein);
+// minisearch's fuzzy lookup is plain Levenshtein, where a swap costs two.
 function adjacentSwaps(term: string): string[] {
   const swaps = new Set<string>();
   for (let i = 0; i < term.length - 1; i++) {
@@ -157,11 +159,13 @@ export class TextIndex {
    * words are included too, as Meilisearch drops query words from the end.
    */
   search(query: string, size: number, options: TextSearchOptions): TextMatches | null {
-    const words = this.#termsOf(query);
+    // Meilisearch only considers the first ten words of a query.
+    const words = this.#termsOf(query).slice(0, MAX_QUERY_WORDS);
     if (words.length === 0) return null;
-    const matches = words.map((word, i) =>
-      this.#matchWord(word, size, options.prefixSearch && i === words.length - 1, typoBudget(word, options.typoTolerance)),
-    );
+    const matches = words.map((word, i) => {
+      const prefix = options.prefixSearch && i === words.length - 1;
+      return this.#matchWord(word, size, prefix, typoBudget(word, options.typoTolerance));
+    });
     const fewestWords = options.matchingStrategy === 'all' ? words.length : 1;
     const result: TextMatches = {
       ids: [],
@@ -170,7 +174,7 @@ export class TextIndex {
       exact: new Uint8Array(size),
       attribute: new Uint16Array(size),
     };
-    const first = matches[0]!.quality;
+    const first = matches[0].quality;
     for (let id = 0; id < size; id++) {
       if (first[id] === Quality.None) continue;
       let matched = 0;
@@ -204,13 +208,15 @@ export class TextIndex {
         if (term !== word) match.mark(postings, Quality.Prefix);
       }
     }
-    if (budget > 0) {
-      for (const [postings, distance] of this.#terms.fuzzyGet(word, budget).values()) {
-        if (distance > 0) match.mark(postings, Quality.Typo);
-      }
-      for (const swapped of adjacentSwaps(word)) {
-        if (budget === 1) match.mark(this.#terms.get(swapped), Quality.Typo);
-        else for (const [postings] of this.#terms.fuzzyGet(swapped, budget - 1).values()) match.mark(postings, Quality.Typo);
+    if (budget === 0) return match;
+    // Meilisearch counts a typo on the first letter as two.
+    const typos = (term: string, edits: number) => edits + (term[0] === word[0] ? 0 : 1);
+    for (const [term, [postings, edits]] of this.#terms.fuzzyGet(word, budget)) {
+      if (edits > 0 && typos(term, edits) <= budget) match.mark(postings, Quality.Typo);
+    }
+    for (const swapped of adjacentSwaps(word)) {
+      for (const [term, [postings, edits]] of this.#terms.fuzzyGet(swapped, budget - 1)) {
+        if (typos(term, edits + 1) <= budget) match.mark(postings, Quality.Typo);
       }
     }
     return match;
@@ -218,10 +224,9 @@ export class TextIndex {
 
   #termsOf(text: string | undefined): string[] {
     if (!text) return [];
-    return text.split(SEPARATORS).flatMap((token) => {
-      const term = normalizeText(token);
-      return term && !this.#stopWords.has(term) ? [term] : [];
-    });
+    return normalizeText(text)
+      .split(SEPARATORS)
+      .filter((term) => term !== '' && !this.#stopWords.has(term));
   }
 }
 

@@ -70,9 +70,10 @@ const documentsSchema = pageSchema.extend({
 function validate<T>(schema: z.ZodType<T>, value: unknown, codePrefix: string): T {
   const parsed = schema.safeParse(value ?? {});
   if (parsed.success) return parsed.data;
-  const issue = parsed.error.issues[0]!;
+  const issue = parsed.error.issues[0];
   const parameter = String(issue.path[0] ?? 'request');
-  throw new MeiliError(400, `${codePrefix}_${snakeCase(parameter)}`, `Invalid value at \`.${parameter}\`: ${issue.message}`);
+  const message = `Invalid value at \`.${parameter}\`: ${issue.message}`;
+  throw new MeiliError(400, `${codePrefix}_${snakeCase(parameter)}`, message);
 }
 
 /** GET parameters as a JSON-like object: numbers converted, comma-separated lists split. */
@@ -107,7 +108,8 @@ function documentsPayload(body: unknown): Json[] {
   if (body === undefined) throw new MeiliError(400, 'missing_payload', 'A json payload is missing.');
   const documents = Array.isArray(body) ? body : [body];
   if (!documents.every(isPlainObject)) {
-    throw new MeiliError(400, 'malformed_payload', 'The `json` payload provided is malformed: documents must be JSON objects.');
+    const message = 'The `json` payload provided is malformed: documents must be JSON objects.';
+    throw new MeiliError(400, 'malformed_payload', message);
   }
   return documents;
 }
@@ -120,8 +122,9 @@ class TaskLog {
   readonly #tasks: Task[] = [];
 
   /**
-   * Runs a write and records it as a task. A MeiliError thrown by the work fails the task
-   * instead of the request, as asynchronous failures do on a real server.
+   * Runs a write, records it as a task and answers 202 with the enqueued-task summary. A
+   * MeiliError thrown by the work fails the task instead of the request, as asynchronous
+   * failures do on a real server.
    */
   run(res: Response, indexUid: string, type: TaskType, details: Json, work: () => Json | void): void {
     const started = performance.now();
@@ -172,7 +175,8 @@ class TaskLog {
     );
     if (!reverse) selected.reverse();
     const from = typeof query.from === 'number' ? query.from : undefined;
-    const start = from === undefined ? 0 : selected.findIndex((task) => (reverse ? task.uid >= from : task.uid <= from));
+    const start =
+      from === undefined ? 0 : selected.findIndex((task) => (reverse ? task.uid >= from : task.uid <= from));
     const page = start < 0 ? [] : selected.slice(start, start + limit);
     const next = start < 0 ? undefined : selected[start + limit];
     return { results: page, total: selected.length, limit, from: page[0]?.uid ?? null, next: next?.uid ?? null };
@@ -186,10 +190,6 @@ class IndexRegistry {
     const index = this.#indexes.get(uid);
     if (!index) throw indexNotFound(uid);
     return index;
-  }
-
-  has(uid: string): boolean {
-    return this.#indexes.has(uid);
   }
 
   /** Runs a write against an index, creating it if needed; a failed write creates nothing. */
@@ -253,7 +253,8 @@ function toMeiliError(error: unknown): MeiliError {
 
 function registerIndexRoutes(app: express.Express, indexes: IndexRegistry, tasks: TaskLog): void {
   app.get('/indexes', (req, res) => {
-    const { offset = 0, limit = 20 } = validate(pageSchema, queryObject(req, ['offset', 'limit'], []), 'invalid_index');
+    const query = queryObject(req, ['offset', 'limit'], []);
+    const { offset = 0, limit = 20 } = validate(pageSchema, query, 'invalid_index');
     const all = indexes.sorted();
     const results = all.slice(offset, offset + limit).map((index) => index.info());
     res.json({ results, offset, limit, total: all.length });
@@ -272,6 +273,10 @@ function registerIndexRoutes(app: express.Express, indexes: IndexRegistry, tasks
 
   app.get('/indexes/:uid', (req, res) => {
     res.json(indexes.get(req.params.uid).info());
+  });
+
+  app.get('/indexes/:uid/stats', (req, res) => {
+    res.json(indexes.get(req.params.uid).stats());
   });
 
   app.patch('/indexes/:uid', (req, res) => {
@@ -411,8 +416,9 @@ export function createSearchStandin(options: { apiKey?: string } = {}): express.
 
   app.disable('x-powered-by');
   if (options.apiKey) app.use(requireApiKey(options.apiKey));
-  // Meilisearch's default payload limit.
-  app.use(express.json({ limit: '100mb' }));
+  // Meilisearch's default payload limit; non-strict because single-setting routes take bare JSON
+  // values such as `"sku"` or `null`.
+  app.use(express.json({ limit: '100mb', strict: false }));
 
   app.get('/health', (_req, res) => {
     res.json({ status: 'available' });

@@ -191,6 +191,12 @@ export function createPlannerService({ db }: { db: Db }) {
       return row;
     },
 
+    /** Customer accounts staff can plan for. */
+    async customers(actor: Actor) {
+      authorize(actor, 'customers.view');
+      return db.select({ id: companies.id, name: companies.name }).from(companies).where(eq(companies.kind, 'installer')).orderBy(asc(companies.name));
+    },
+
     async rangeDetail(actor: Actor, idOrCode: string) {
       authorize(actor, 'catalogue.view');
       const r = await loadRange(idOrCode);

@@ -95,17 +95,21 @@ describe('indexes and tasks', () => {
     // Meilisearch API reference: writes answer with a summarized task in status "enqueued".
     expect(enqueued).toMatchObject({ indexUid: 'catalog', status: 'enqueued', type: 'indexCreation' });
     const task = await client.tasks.waitForTask(enqueued.taskUid);
+    // Meilisearch API reference: GET /tasks/{uid} reports the outcome once processed.
     expect(task).toMatchObject({ uid: enqueued.taskUid, status: 'succeeded', error: null });
 
     expect((await client.getIndex('catalog')).primaryKey).toBe('sku');
+    // Meilisearch API reference: GET /indexes is paginated, 20 indexes by default.
     const listed = await client.getRawIndexes();
     expect(listed.results.map((index) => index.uid)).toContain('catalog');
     expect(listed).toMatchObject({ offset: 0, limit: 20 });
 
+    // Meilisearch API reference: PATCH /indexes/{uid} changes the primary key of an empty index.
     await succeeded(client.updateIndex('catalog', { primaryKey: 'code' }));
     expect((await client.getRawIndex('catalog')).primaryKey).toBe('code');
 
     await succeeded(client.deleteIndex('catalog'));
+    // Meilisearch errors reference: index_not_found for an index that does not exist.
     const missing = await apiError(client.getIndex('catalog'));
     expect(missing.cause?.code).toBe('index_not_found');
   });
@@ -125,6 +129,7 @@ describe('indexes and tasks', () => {
     // Meilisearch API reference: GET /tasks returns the most recent tasks first.
     const recent = await client.tasks.getTasks({ indexUids: [uid] });
     expect(recent.results.map((task) => task.uid)).toEqual([failed.uid, created.uid]);
+    // Meilisearch API reference: GET /tasks filters by statuses and indexUids.
     const onlyFailed = await client.tasks.getTasks({ indexUids: [uid], statuses: ['failed'] });
     expect(onlyFailed.results.map((task) => task.uid)).toEqual([failed.uid]);
   });
@@ -132,20 +137,25 @@ describe('indexes and tasks', () => {
   it('stores settings and returns them, including single-setting routes', async () => {
     const index = await partsIndex();
     const settings = await index.getSettings();
+    // Meilisearch API reference: GET /settings returns the stored settings.
     expect(settings.filterableAttributes).toEqual(PART_SETTINGS.filterableAttributes);
     expect(settings.searchableAttributes).toEqual(['name', 'category', 'tags']);
     // Meilisearch docs, "Settings": ranking rules and typo tolerance defaults.
     expect(settings.rankingRules).toEqual(['words', 'typo', 'proximity', 'attribute', 'sort', 'exactness']);
     expect(settings.typoTolerance?.minWordSizeForTypos).toEqual({ oneTypo: 5, twoTypos: 9 });
 
+    // Meilisearch API reference: each setting has its own route taking the bare value.
+    await succeeded(index.updateDistinctAttribute('maker'));
+    expect(await index.getDistinctAttribute()).toBe('maker');
     await succeeded(index.updateSynonyms({ wire: ['cable'] }));
     await succeeded(index.updateTypoTolerance({ minWordSizeForTypos: { oneTypo: 4 } }));
     await succeeded(index.updatePagination({ maxTotalHits: 500 }));
     expect(await index.getSynonyms()).toEqual({ wire: ['cable'] });
     // Meilisearch docs, "Settings": object settings are partially updated.
-    expect((await index.getTypoTolerance()).minWordSizeForTypos).toEqual({ oneTypo: 4, twoTypos: 9 });
+    expect((await index.getTypoTolerance())?.minWordSizeForTypos).toEqual({ oneTypo: 4, twoTypos: 9 });
     expect(await index.getPagination()).toEqual({ maxTotalHits: 500 });
 
+    // Meilisearch API reference: DELETE on a setting route resets it to its default.
     await succeeded(index.resetSynonyms());
     expect(await index.getSynonyms()).toEqual({});
   });
@@ -162,10 +172,14 @@ describe('documents', () => {
   it('adds, replaces, partially updates, fetches and deletes documents', async () => {
     const index = await partsIndex();
     const page = await index.getDocuments({ offset: 1, limit: 2 });
+    // Meilisearch API reference: GET /documents pages with offset and limit and reports the total.
     expect(page).toMatchObject({ offset: 1, limit: 2, total: 5 });
     expect(ids(page.results)).toEqual(['p2', 'p3']);
     // Documents come back exactly as they were sent.
     expect(await index.getDocument('p5')).toEqual(PARTS[4]);
+    // Meilisearch API reference: GET /indexes/{uid}/stats counts documents and their fields.
+    expect(await index.getStats()).toMatchObject({ numberOfDocuments: 5, isIndexing: false });
+    expect((await index.getStats()).fieldDistribution).toMatchObject({ id: 5, supersededBy: 1 });
 
     // Meilisearch API reference: PUT /documents merges fields into the existing document.
     await succeeded(index.updateDocuments([{ id: 'p1', price: 6 }]));
@@ -174,17 +188,21 @@ describe('documents', () => {
     await succeeded(index.addDocuments([{ id: 'p1', name: 'USB-C cable' } as Part]));
     expect(await index.getDocument('p1')).toEqual({ id: 'p1', name: 'USB-C cable' });
 
+    // Meilisearch API reference: POST /documents/fetch filters and projects documents.
     const modules = await index.getDocuments({ filter: 'category = module', fields: ['id'] });
     expect(modules.results).toEqual([{ id: 'p3' }, { id: 'p4' }]);
 
+    // Meilisearch API reference: delete one document, a batch of ids, or by filter.
     await succeeded(index.deleteDocument('p1'));
     await succeeded(index.deleteDocuments(['p2', 'missing']));
     const byFilter = await index.deleteDocuments({ filter: 'maker = acme' }).waitTask();
     expect(byFilter.details?.deletedDocuments).toBe(1);
     expect(ids((await index.getDocuments()).results)).toEqual(['p4', 'p5']);
+    // Meilisearch errors reference: document_not_found.
     const notFound = await apiError(index.getDocument('p1'));
     expect(notFound.cause?.code).toBe('document_not_found');
 
+    // Meilisearch API reference: DELETE /documents removes every document.
     await succeeded(index.deleteAllDocuments());
     expect((await index.getDocuments()).total).toBe(0);
   });
@@ -210,7 +228,7 @@ describe('documents', () => {
 
   it('fails the whole addition when a document lacks its primary key or has an invalid one', async () => {
     const index = await partsIndex();
-    const missing = await index.addDocuments([{ id: 'p9', name: 'Fuse' }, { name: 'Diode' } as Part]).waitTask();
+    const missing = await index.addDocuments([{ ...PARTS[0], id: 'p9' }, { name: 'Diode' } as Part]).waitTask();
     // Meilisearch errors reference: missing_document_id and invalid_document_id are task errors.
     expect(missing.status).toBe('failed');
     expect(missing.error?.code).toBe('missing_document_id');
@@ -252,24 +270,27 @@ describe('search', () => {
 
   it('tolerates one typo in words of five letters or more, none in shorter words', async () => {
     const index = await partsIndex();
-    // Meilisearch docs, "Typo tolerance": one typo from 5 letters; a swap of adjacent letters is one typo.
-    expect(ids((await index.search('cabel')).hits).sort()).toEqual(['p1', 'p2', 'p5']);
+    // Meilisearch docs, "Typo tolerance settings": one typo allowed from 5 letters.
     expect(ids((await index.search('modle')).hits).sort()).toEqual(['p3', 'p4']);
-    // Meilisearch docs, "Typo tolerance": no typo allowed below 5 letters.
+    // Meilisearch docs, "Typo tolerance vs fuzzy search": swapped adjacent letters count as one typo.
+    expect(ids((await index.search('cabel')).hits).sort()).toEqual(['p1', 'p2', 'p5']);
+    // Meilisearch docs, "Typo tolerance vs fuzzy search": a typo on the first letter counts as two.
+    expect((await index.search('xable')).hits).toEqual([]);
+    // Meilisearch docs, "Typo tolerance settings": no typo allowed below 5 letters.
     expect((await index.search('usv')).hits).toEqual([]);
   });
 
   it('ranks documents matching more words, then fewer typos, first', async () => {
     const index = await partsIndex();
-    await succeeded(index.addDocuments([{ ...PARTS[3]!, id: 'p6', name: 'Delay line', category: 'line' }]));
-    // Meilisearch docs, "Ranking rules": `typo` ranks exact matches above typo matches.
-    expect(ids((await index.search('relay')).hits)).toEqual(['p4', 'p6']);
-    // Meilisearch docs, "matchingStrategy": `last` ranks documents with all words first, then drops words.
-    const last = await index.search('cable usb');
-    expect(last.hits[0]?.id).toBe('p1');
-    expect(ids(last.hits).sort()).toEqual(['p1', 'p2', 'p5']);
+    // Meilisearch docs, "matchingStrategy": `last` ranks documents with all words first, then drops words from the end.
+    expect(ids((await index.search('cable hdmi')).hits)).toEqual(['p2', 'p1', 'p5']);
     // Meilisearch docs, "matchingStrategy": `all` only returns documents containing every word.
-    expect(ids((await index.search('cable usb', { matchingStrategy: 'all' })).hits)).toEqual(['p1']);
+    expect(ids((await index.search('cable hdmi', { matchingStrategy: 'all' })).hits)).toEqual(['p2']);
+
+    // p1 is stored before p4, so only the typo rule can put p4 first.
+    await succeeded(index.addDocuments([{ ...PARTS[0], name: 'Relax spring' }]));
+    // Meilisearch docs, "Ranking rules": `typo` ranks exact matches above matches with typos.
+    expect(ids((await index.search('relay')).hits)).toEqual(['p4', 'p1']);
   });
 
   it('filters with the string syntax', async () => {
@@ -318,6 +339,7 @@ describe('search', () => {
     // Meilisearch docs, "Faceted search": facetStats gives min and max of numeric facets.
     expect(result.facetStats?.price).toEqual({ min: 2, max: 30 });
 
+    // Meilisearch docs, "Faceted search": counts follow the query and the filter.
     const filtered = await index.search('cable', { facets: ['maker'], filter: 'inStock = true' });
     expect(filtered.facetDistribution).toEqual({ maker: { acme: 1, globex: 1 } });
   });
@@ -333,6 +355,7 @@ describe('search', () => {
       'p5',
       'p4',
     ]);
+    // Meilisearch docs, "Sort search results": sort also orders text matches.
     expect(ids((await index.search('cable', { sort: ['price:desc'] })).hits)).toEqual(['p2', 'p1', 'p5']);
     // Meilisearch errors reference: sorting on a non-sortable attribute is invalid_search_sort.
     const error = await apiError(index.search('', { sort: ['category:asc'] }));
@@ -356,6 +379,7 @@ describe('search', () => {
 
   it('returns only the attributes asked for and displayed', async () => {
     const index = await partsIndex();
+    // Meilisearch API reference, "attributesToRetrieve": only the listed attributes are returned.
     const result = await index.search('relay', { attributesToRetrieve: ['id', 'name'] });
     expect(result.hits).toEqual([{ id: 'p4', name: 'Relay module' }]);
     await succeeded(index.updateDisplayedAttributes(['id', 'price']));
@@ -366,6 +390,7 @@ describe('search', () => {
 
   it('supports the GET search variant', async () => {
     const index = await partsIndex();
+    // Meilisearch API reference: GET /search takes the same parameters as query strings.
     const result = await index.searchGet('cab', { filter: 'inStock = true', facets: ['maker'], sort: ['price:asc'] });
     expect(ids(result.hits)).toEqual(['p5', 'p1']);
     expect(result.facetDistribution).toEqual({ maker: { acme: 1, globex: 1 } });
@@ -403,6 +428,7 @@ describe('api key', () => {
     expect(wrong.response.status).toBe(403);
     expect(wrong.cause?.code).toBe('invalid_api_key');
 
+    // Meilisearch docs, "Security": requests with the master key are authorized.
     const authorized = new Meilisearch({ host: secured.url, apiKey: 'master-key' });
     await succeeded(authorized.createIndex('secured'));
     expect((await authorized.getIndexes()).total).toBe(1);

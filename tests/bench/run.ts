@@ -1,0 +1,187 @@
+// The benchmarks behind `npm run bench`. Each figure is printed beside its reference, measured
+// in this same run on this machine, and written to bench-results/bench.json.
+import { spawn, type ChildProcess } from 'node:child_process';
+import { gzipSync } from 'node:zlib';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { Meilisearch } from 'meilisearch';
+import { readEnv } from '../../server/env.ts';
+import { buildContext } from '../../server/context.ts';
+import { migrateDb } from '../../server/db/client.ts';
+import { seedDemo } from '../../seed/demo.ts';
+import { PARTS_INDEX, PARTS_INDEX_SETTINGS } from '../../server/search/parts-index.ts';
+import { StandinIndex } from '../../server/search/standin-index.ts';
+import { parseSettings } from '../../server/search/standin-settings.ts';
+import { BENCH_PARTS, generateBenchCatalogue } from './generate.ts';
+
+const API_PORT = 3390;
+const SEARCH_PORT = 7790;
+const base = `http://127.0.0.1:${API_PORT}`;
+const results: Record<string, unknown> = { machine: { node: process.version, cpus: (await import('node:os')).cpus().length }, at: new Date().toISOString() };
+
+function percentile(values: number[], p: number) {
+  const s = [...values].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.floor((p / 100) * s.length))]!;
+}
+const ms = (n: number) => Math.round(n * 100) / 100;
+
+/** `concurrency` clients each sending requests until `total` have been sent; latencies in ms. */
+async function load(concurrency: number, total: number, send: (i: number) => Promise<void>) {
+  const latencies: number[] = [];
+  let next = 0;
+  const started = performance.now();
+  await Promise.all(
+    Array.from({ length: concurrency }, async () => {
+      while (next < total) {
+        const i = next++;
+        const t0 = performance.now();
+        await send(i);
+        latencies.push(performance.now() - t0);
+      }
+    }),
+  );
+  const seconds = (performance.now() - started) / 1000;
+  return { p50: ms(percentile(latencies, 50)), p95: ms(percentile(latencies, 95)), perSecond: Math.round(total / seconds) };
+}
+
+function child(entry: string, env: Record<string, string>): ChildProcess {
+  return spawn(process.execPath, ['--import', 'tsx', entry], { env: { ...process.env, ...env }, stdio: ['ignore', 'ignore', 'inherit'] });
+}
+
+async function waitFor(check: () => Promise<boolean>, what: string, timeoutMs = 300_000) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    if (await check().catch(() => false)) return;
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  throw new Error(`${what} did not happen in time`);
+}
+
+function rssMb(pid: number) {
+  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+  return Math.round(Number(/VmRSS:\s+(\d+)/.exec(status)![1]) / 1024);
+}
+
+// --- data ---------------------------------------------------------------------------------
+const env = readEnv({ ...process.env, PORT: String(API_PORT), LOG_LEVEL: 'silent' });
+const context = buildContext(env);
+await migrateDb(context.db);
+await seedDemo(context.db, context.auth);
+console.log('generating the benchmark catalogue (first run only)…');
+const t0 = performance.now();
+const generated = await generateBenchCatalogue(context.db);
+if (generated) console.log(`  generated in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+
+// --- services -----------------------------------------------------------------------------
+const search = child('server/search/standin-main.ts', { SEARCH_PORT: String(SEARCH_PORT) });
+const meili = new Meilisearch({ host: `http://127.0.0.1:${SEARCH_PORT}` });
+await waitFor(() => meili.health().then(() => true), 'search stand-in start');
+const api = child('server/index.ts', {
+  PORT: String(API_PORT),
+  DATABASE_URL: env.DATABASE_URL,
+  MEILI_HOST: `http://127.0.0.1:${SEARCH_PORT}`,
+  LOG_LEVEL: 'silent',
+  NODE_ENV: 'production',
+  SIGN_IN_LIMIT_PER_MINUTE: '1000',
+});
+const total = BENCH_PARTS + 165;
+console.log('indexing the catalogue through the API server…');
+const t1 = performance.now();
+await waitFor(async () => (await meili.index(PARTS_INDEX).getStats()).numberOfDocuments >= total, 'indexing');
+await waitFor(() => fetch(`${base}/api/health`).then((r) => r.ok), 'API start');
+results.indexing = { documents: total, seconds: Math.round((performance.now() - t1) / 100) / 10 };
+
+const signIn = await fetch(`${base}/api/auth/sign-in/email`, {
+  method: 'POST',
+  headers: { 'content-type': 'application/json', origin: base },
+  body: JSON.stringify({ email: 'sales@stackyard.test', password: 'stackyard-demo' }),
+});
+const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+if (!signIn.ok || !cookie) throw new Error(`bench sign-in failed: ${signIn.status}`);
+const headers = { cookie, origin: base, 'content-type': 'application/json' };
+
+try {
+  // --- search --------------------------------------------------------------------------------
+  const queries = ['cab', 'cable se', 'galv', 'bracet', 'weatherpro', 'BN-012', 'earth lead 50', 'insul', 'slimline foot', 'marine', 'armoured cable', 'termin', 'compact end cap', 'flexble', 'low-profile', 'heavy-duty wall', 'controller', 'module', 'BN-04999', 'cover 120'];
+  const filters = ['', 'cable-set', 'wall-bracket', ''];
+  const docs: Record<string, unknown>[] = [];
+  for (let offset = 0; offset < total; offset += 1000) docs.push(...((await meili.index(PARTS_INDEX).getDocuments({ offset, limit: 1000 })).results as Record<string, unknown>[]));
+  const engine = new StandinIndex(PARTS_INDEX, 'id');
+  engine.updateSettings(parseSettings(PARTS_INDEX_SETTINGS));
+  engine.addDocuments(docs as never, 'replace');
+  const facets = ['category', 'maker', 'ranges', 'lifecycle', 'inStock'];
+  const engineRequest = (i: number) => {
+    const category = filters[i % filters.length];
+    return { q: queries[i % queries.length], filter: ['archived = false', ...(category ? [`category = "${category}"`] : [])].join(' AND '), facets, limit: 50 };
+  };
+  for (let i = 0; i < 200; i++) engine.search(engineRequest(i)); // warm-up
+  const ref: number[] = [];
+  for (let i = 0; i < 2000; i++) {
+    const s = performance.now();
+    engine.search(engineRequest(i));
+    ref.push(performance.now() - s);
+  }
+  const reference = { p50: ms(percentile(ref, 50)), p95: ms(percentile(ref, 95)) };
+  const searchUrl = (i: number) => {
+    const category = filters[i % filters.length];
+    return `${base}/api/parts?${new URLSearchParams({ q: queries[i % queries.length]!, pageSize: '50', ...(category ? { category } : {}) })}`;
+  };
+  await load(16, 300, async (i) => void (await fetch(searchUrl(i), { headers }).then((r) => r.arrayBuffer())));
+  const searchApi = await load(16, 4000, async (i) => {
+    const r = await fetch(searchUrl(i), { headers });
+    if (!r.ok) throw new Error(`search answered ${r.status}`);
+    await r.arrayBuffer();
+  });
+  results.search = { api: searchApi, inProcessEngine: reference, target: 'p95 ≤ 2× in-process and ≤ 25 ms', met: searchApi.p95 <= 2 * reference.p95 && searchApi.p95 <= 25 };
+
+  // --- stack planner -------------------------------------------------------------------------
+  const bodies = [
+    { rangeId: 'QRB-HEARTH', modules: 3 },
+    { rangeId: 'HLM-TOR', modules: 5, inverterSku: 'HLM-INV-10HV3' },
+    { rangeId: 'TVP-SL48', modules: 7, stacks: 2 },
+    { rangeId: 'QRB-RIDGE', targetUsableKwh: 9, inverterSku: 'HLM-INV-6HV1' },
+    { rangeId: 'QRB-HEARTH', targetUsableKwh: 20, inverterSku: 'QRB-INV-5LV' },
+  ];
+  const plan = (i: number) => fetch(`${base}/api/stack-plans`, { method: 'POST', headers, body: JSON.stringify(bodies[i % bodies.length]) });
+  await load(16, 300, async (i) => void (await plan(i).then((r) => r.arrayBuffer())));
+  const planner = await load(16, 5000, async (i) => {
+    const r = await plan(i);
+    if (!r.ok) throw new Error(`planner answered ${r.status}: ${await r.text()}`);
+    await r.arrayBuffer();
+  });
+  results.stackPlan = { ...planner, target: 'p95 ≤ 15 ms and ≥ 400 req/s', met: planner.p95 <= 15 && planner.perSecond >= 400 };
+
+  // --- bundle ----------------------------------------------------------------------------------
+  const dist = path.resolve('dist/client');
+  const html = readFileSync(path.join(dist, 'index.html'), 'utf8');
+  const assets = [...html.matchAll(/(?:src|href)="(\/assets\/[^"]+\.(?:js|css))"/g)].map((m) => m[1]!);
+  const signInChunk = readFileSync(path.join(dist, assets.find((a) => a.endsWith('.js'))!), 'utf8').match(/assets\/sign-in-[\w-]+\.js/);
+  const files = [...new Set([...assets.map((a) => a.slice(1)), ...(signInChunk ? [signInChunk[0]] : [])])];
+  const gzipKb = Math.round(files.reduce((s, f) => s + gzipSync(readFileSync(path.join(dist, f))).length, 0) / 102.4) / 10;
+  results.bundle = { firstRouteGzipKb: gzipKb, files, target: '≤ 200 KB', met: gzipKb <= 200 };
+
+  // --- memory ----------------------------------------------------------------------------------
+  const apiRss = rssMb(api.pid!);
+  const searchRss = rssMb(search.pid!);
+  results.memory = { apiServerRssMb: apiRss, searchStandinRssMb: searchRss, target: '≤ 400 MB (API server with the big catalogue indexed)', met: apiRss <= 400 };
+} finally {
+  api.kill('SIGTERM');
+  search.kill('SIGTERM');
+  await context.db.$client.end();
+}
+
+mkdirSync('bench-results', { recursive: true });
+writeFileSync('bench-results/bench.json', `${JSON.stringify(results, null, 2)}\n`);
+const s = results.search as { api: { p50: number; p95: number }; inProcessEngine: { p50: number; p95: number }; met: boolean };
+const p = results.stackPlan as { p95: number; perSecond: number; met: boolean };
+const b = results.bundle as { firstRouteGzipKb: number; met: boolean };
+const m = results.memory as { apiServerRssMb: number; searchStandinRssMb: number; met: boolean };
+const mark = (ok: boolean) => (ok ? 'met' : 'NOT MET');
+console.log('\nbenchmark                          ours                      reference (same run)        target');
+console.log(`search API, 16 clients             p50 ${s.api.p50} / p95 ${s.api.p95} ms     engine in-process p50 ${s.inProcessEngine.p50} / p95 ${s.inProcessEngine.p95} ms   ${mark(s.met)}`);
+console.log(`stack plan incl. availability      p95 ${p.p95} ms, ${p.perSecond} req/s     —                             ${mark(p.met)}`);
+console.log(`client bundle, first route         ${b.firstRouteGzipKb} KB gzip             —                             ${mark(b.met)}`);
+console.log(`server memory, big catalogue       API ${m.apiServerRssMb} MB RSS (search stand-in ${m.searchStandinRssMb} MB)                        ${mark(m.met)}`);
+console.log('not yet measured (features not built): concurrent reservations, price-list import, label PDFs');
+console.log('written to bench-results/bench.json');
