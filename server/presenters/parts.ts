@@ -73,7 +73,7 @@ export function presentPartDetail(actor: Actor, d: Awaited<ReturnType<CatalogueS
     ipRating: p.ipRating,
     supersededBy: d.successor,
     supersedes: d.predecessors,
-    dangerousGoods: p.unNumber ? { unNumber: p.unNumber as 'UN3480' | 'UN3481', class: '9', whRating: p.whRating ?? 0 } : null,
+    dangerousGoods: p.unNumber && p.whRating ? { unNumber: p.unNumber as 'UN3480' | 'UN3481', class: '9', whRating: p.whRating } : null,
     attributes: p.attributes as Record<string, unknown>,
     compliance: p.compliance as Record<string, unknown> | null,
     ...(d.supplierSkus ? { supplierSkus: d.supplierSkus } : {}),

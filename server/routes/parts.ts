@@ -97,7 +97,8 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
       res.setHeader('content-type', file.contentType);
       res.setHeader('cache-control', 'private, max-age=31536000, immutable');
       res.setHeader('x-content-type-options', 'nosniff');
-      res.setHeader('content-disposition', `${file.contentType === 'application/pdf' ? 'inline' : 'inline'}; filename="${file.fileName}"`);
+      // Stored names are already reduced to letters, digits, spaces, dots and dashes (media service).
+      res.setHeader('content-disposition', `inline; filename="${file.fileName}"`);
       res.send(file.bytes);
     });
   }

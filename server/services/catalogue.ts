@@ -1,4 +1,4 @@
-import { and, asc, count, eq, inArray, isNull, or, sql } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
 import { makers, partMedia, parts, partSupplierSkus, ranges, stockLevels, suppliers, warehouses } from '../db/schema/index.ts';
 import type { PartsIndex, PartDocument } from '../search/parts-index.ts';
@@ -9,6 +9,7 @@ import { normalizeGtin14 } from '@shared/domain/gtin.ts';
 import type { PartInputParsed, PartListQuery } from '@shared/contracts/parts.ts';
 
 const FACETS = ['category', 'maker', 'ranges', 'lifecycle', 'inStock'] as const;
+type Facet = (typeof FACETS)[number];
 const SORTS: Record<string, string> = { sku: 'sku', name: 'name', category: 'category', maker: 'maker' };
 
 /** A filter value quoted for the search engine's filter syntax. */
@@ -25,22 +26,16 @@ export function createCatalogueService({ db, partsIndex }: { db: Db; partsIndex:
 
   /** A scanned or typed code: exact SKU, GTIN (any length, compared as GTIN-14) or supplier SKU. */
   async function exactMatch(code: string): Promise<string | null> {
-    const c = code.trim();
-    if (!c || c.length > 64 || /\s/.test(c)) return null;
+    const c = code.trim().toUpperCase();
+    if (c.length < 2 || c.length > 64 || /\s/.test(c)) return null;
     const gtin14 = /^\d{8,14}$/.test(c) ? normalizeGtin14(c) : null;
-    const [hit] = await db
-      .select({ sku: parts.sku })
-      .from(parts)
-      .leftJoin(partSupplierSkus, eq(partSupplierSkus.partId, parts.id))
-      .where(
-        or(
-          eq(parts.sku, c.toUpperCase()),
-          gtin14 ? sql`lpad(${parts.gtin}, 14, '0') = ${gtin14}` : undefined,
-          sql`upper(${partSupplierSkus.supplierSku}) = ${c.toUpperCase()}`,
-        ),
-      )
-      .limit(1);
-    return hit?.sku ?? null;
+    // Three indexed look-ups; the first that answers wins.
+    const { rows } = await db.execute<{ sku: string }>(sql`
+      (select sku from parts where sku = ${c})
+      union all (select sku from parts where ${gtin14 ?? null}::text is not null and gtin14 = ${gtin14 ?? null}::text)
+      union all (select p.sku from part_supplier_skus s join parts p on p.id = s.part_id where upper(s.supplier_sku) = ${c})
+      limit 1`);
+    return rows[0]?.sku ?? null;
   }
 
   /** Names → ids for a part's references, with field-level messages for what does not exist. */
@@ -131,24 +126,31 @@ export function createCatalogueService({ db, partsIndex }: { db: Db; partsIndex:
 
     async list(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
-      const filter = ['archived = false'];
-      if (query.category) filter.push(`category = ${quote(query.category)}`);
-      if (query.maker) filter.push(`maker = ${quote(query.maker)}`);
-      if (query.range) filter.push(`ranges = ${quote(query.range)}`);
-      if (query.lifecycle) filter.push(`lifecycle = ${quote(query.lifecycle)}`);
-      if (query.inStock) filter.push(`inStock = ${query.inStock}`);
+      const chosen: [Facet, string | undefined][] = [
+        ['category', query.category],
+        ['maker', query.maker],
+        ['ranges', query.range],
+        ['lifecycle', query.lifecycle],
+        ['inStock', query.inStock],
+      ];
+      const filterWithout = (skip?: Facet) =>
+        ['archived = false', ...chosen.filter(([f, v]) => v !== undefined && f !== skip).map(([f, v]) => (f === 'inStock' ? `inStock = ${v}` : `${f} = ${quote(v!)}`))].join(' AND ');
       const sort = query.sort !== 'relevance' ? [`${SORTS[query.sort]}:${query.dir}`] : query.q ? undefined : ['sku:asc'];
-      const [result, exactSku] = await Promise.all([
+      // A chosen facet still shows the counts of its other values: those come from a search without its own filter.
+      const active = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
+      const [result, exactSku, ...others] = await Promise.all([
         partsIndex.index.search(query.q, {
-          filter: filter.join(' AND '),
+          filter: filterWithout(),
           facets: [...FACETS],
           sort,
           limit: query.pageSize,
           offset: (query.page - 1) * query.pageSize,
         }),
         exactMatch(query.q),
+        ...active.map((f) => partsIndex.index.search(query.q, { filter: filterWithout(f), facets: [f], limit: 0 })),
       ]);
-      const dist = result.facetDistribution ?? {};
+      const dist = { ...(result.facetDistribution ?? {}) };
+      active.forEach((f, i) => (dist[f] = others[i]!.facetDistribution?.[f] ?? {}));
       return {
         hits: result.hits as PartDocument[],
         total: result.estimatedTotalHits ?? result.hits.length,

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, or, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.ts';
 import { companies, makers, parts, rangeInverters, ranges, stackPlans, stockLevels, user, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
@@ -55,15 +55,14 @@ export function createPlannerService({ db }: { db: Db }) {
     const r = row.range;
     const rules = BomRulesSchema.parse(r.rules);
     const ruleSkus = rules.map((x) => x.sku);
-    const [unitRows, ruleRows, inverterRows] = await Promise.all([
-      db.select().from(parts).where(inArray(parts.id, [r.controllerId, r.moduleId])),
-      ruleSkus.length ? db.select().from(parts).where(inArray(parts.sku, ruleSkus)) : Promise.resolve([]),
+    const [partRows, inverterRows] = await Promise.all([
+      db.select().from(parts).where(ruleSkus.length ? or(inArray(parts.id, [r.controllerId, r.moduleId]), inArray(parts.sku, ruleSkus)) : inArray(parts.id, [r.controllerId, r.moduleId])),
       db.select({ part: parts }).from(rangeInverters).innerJoin(parts, eq(parts.id, rangeInverters.inverterId)).where(eq(rangeInverters.rangeId, r.id)).orderBy(asc(parts.sku)),
     ]);
-    const controller = unitRows.find((p) => p.id === r.controllerId)!;
-    const module = unitRows.find((p) => p.id === r.moduleId)!;
+    const controller = partRows.find((p) => p.id === r.controllerId)!;
+    const module = partRows.find((p) => p.id === r.moduleId)!;
     const partsBySku: Record<string, PlannerPart> = {};
-    for (const p of [controller, module, ...ruleRows]) partsBySku[p.sku] = plannerPart(p);
+    for (const p of partRows) partsBySku[p.sku] = plannerPart(p);
     const planner: PlannerRange = {
       id: r.id,
       name: r.name,

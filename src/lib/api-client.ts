@@ -53,11 +53,38 @@ export async function api<T>(path: string, { method = 'GET', body, query, signal
   if (res.status === 204) return undefined as T;
   const text = await res.text();
   const json = text ? safeJson(text) : undefined;
-  if (!res.ok) {
-    const env = json as Partial<ErrorEnvelope> | undefined;
-    throw new ApiError(res.status, env?.error?.code ?? 'http_error', env?.error?.message ?? `The server answered ${res.status}.`, env?.error?.details, env?.requestId);
-  }
+  if (!res.ok) throw errorFrom(res.status, json);
   return json as T;
+}
+
+function errorFrom(status: number, json: unknown) {
+  const env = json as Partial<ErrorEnvelope> | undefined;
+  return new ApiError(status, env?.error?.code ?? 'http_error', env?.error?.message ?? `The server answered ${status}.`, env?.error?.details, env?.requestId);
+}
+
+/** A file answer (CSV, PDF) saved under the server's file name; errors arrive as ApiError like any other call. */
+export async function download(path: string, { method = 'GET', body }: Pick<RequestOptions, 'method' | 'body'> = {}): Promise<void> {
+  const res = await fetch(`/api${path}`, {
+    method,
+    credentials: 'same-origin',
+    headers: body === undefined ? undefined : { 'content-type': 'application/json' },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
+  if (!res.ok) {
+    const text = await res.text();
+    throw errorFrom(res.status, text ? safeJson(text) : undefined);
+  }
+  const disposition = res.headers.get('content-disposition') ?? '';
+  const fileName = /filename="?([^";]+)"?/i.exec(disposition)?.[1] ?? path.split('/').pop() ?? 'download';
+  const url = URL.createObjectURL(await res.blob());
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = fileName;
+  document.body.append(link);
+  link.click();
+  link.remove();
+  // The click has handed the blob to the browser; give it a moment before letting go.
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
 }
 
 function safeJson(text: string) {

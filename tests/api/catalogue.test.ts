@@ -64,6 +64,9 @@ describe('GET /api/parts', () => {
     const res = await agent.get('/api/parts').query({ category: 'controller', maker: 'HLM' }).expect(200);
     expect(res.body.data.every((p: { category: string; maker: string }) => p.category === 'controller' && p.maker === 'HLM')).toBe(true);
     expect(res.body.total).toBeLessThanOrEqual(controllers);
+    // the chosen facet keeps the counts of its other values, so a user can switch without clearing
+    expect(res.body.facets.category.controller).toBe(res.body.total);
+    expect(Object.keys(res.body.facets.category).length).toBeGreaterThan(1);
     const stocked = await agent.get('/api/parts').query({ inStock: 'true', pageSize: 200 }).expect(200);
     expect(stocked.body.data.every((p: { available: number }) => p.available > 0)).toBe(true);
     expect(stocked.body.total).toBe(all.body.facets.inStock.true);

@@ -134,6 +134,17 @@ describe('saved plans', () => {
   });
 });
 
+describe('GET /api/customers', () => {
+  it('lists customer accounts for staff and refuses installers', async () => {
+    const sales = await t.signIn('sales');
+    const c = await makeCompany(t.db, { name: 'Ironbark Solar' });
+    const res = await sales.get('/api/customers').expect(200);
+    expect(res.body.data.map((x: { id: string }) => x.id)).toContain(c.id);
+    const installer = await t.signIn('installer');
+    await installer.get('/api/customers').expect(403);
+  });
+});
+
 describe('range editing', () => {
   const body = async (code: string) => {
     const admin = await t.signIn('purchasing');

@@ -1,8 +1,7 @@
 // Browser tests: the real built client served by the real app, driven in Debian's Chromium.
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { mkdirSync, mkdtempSync } from 'node:fs';
-import os from 'node:os';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { onTestFailed } from 'vitest';
@@ -29,7 +28,8 @@ export async function startBrowserHarness(): Promise<BrowserHarness> {
   server.on('request', t.app);
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync', `--user-data-dir=${mkdtempSync(path.join(os.tmpdir(), 'stackyard-chromium-'))}`],
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    // playwright gives each launch a fresh throwaway profile itself (and refuses --user-data-dir).
   });
   return {
     t,

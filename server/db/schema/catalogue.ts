@@ -29,6 +29,8 @@ export const parts = pgTable(
       .references(() => makers.id),
     description: text().notNull().default(''),
     gtin: text().unique(),
+    /** The GTIN as 14 digits, so a scanned GTIN-13 or GTIN-14 finds the part through one index. */
+    gtin14: text().generatedAlwaysAs(sql`lpad(gtin, 14, '0')`),
     unit: text().notNull().default('each'),
     packSize: integer().notNull().default(1),
     massKg: numeric({ precision: 9, scale: 3, mode: 'number' }).notNull().default(0),
@@ -53,6 +55,7 @@ export const parts = pgTable(
   (t) => [
     index().on(t.category),
     index().on(t.makerId),
+    index('parts_gtin14_idx').on(t.gtin14),
     check('parts_category_known', sql`${t.category} in (${categoryList})`),
     // The typed attributes (validated by the shared zod union) must describe the same category.
     check('parts_attributes_category', sql`${t.attributes}->>'category' = ${t.category}`),
@@ -75,7 +78,11 @@ export const partSupplierSkus = pgTable(
       .references(() => suppliers.id),
     supplierSku: text().notNull(),
   },
-  (t) => [primaryKey({ columns: [t.partId, t.supplierId] }), uniqueIndex().on(t.supplierId, t.supplierSku)],
+  (t) => [
+    primaryKey({ columns: [t.partId, t.supplierId] }),
+    uniqueIndex().on(t.supplierId, t.supplierSku),
+    index('part_supplier_skus_upper_idx').on(sql`upper(${t.supplierSku})`),
+  ],
 );
 
 export const partMedia = pgTable(

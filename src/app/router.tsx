@@ -1,0 +1,51 @@
+import { createBrowserRouter, redirect, RouterProvider } from 'react-router';
+import { queryClient } from '@/lib/query-client.ts';
+import { meQueryOptions } from '@/features/auth/api/get-me.ts';
+import { paths } from '@/config/paths.ts';
+import { RouteError } from './routes/route-error.tsx';
+
+/** Pages behind sign-in: no session → the sign-in page, remembering where the user was going. */
+async function requireSession({ request }: { request: Request }) {
+  const me = await queryClient.ensureQueryData(meQueryOptions());
+  if (!me) {
+    const url = new URL(request.url);
+    throw redirect(paths.signIn.href(url.pathname + url.search));
+  }
+  return me;
+}
+
+const router = createBrowserRouter([
+  {
+    path: paths.signIn.path,
+    lazy: () => import('./routes/sign-in.tsx').then((m) => ({ Component: m.SignInRoute })),
+    errorElement: <RouteError />,
+  },
+  {
+    path: '/',
+    loader: requireSession,
+    lazy: () => import('./layout.tsx').then((m) => ({ Component: m.AppLayout })),
+    errorElement: <RouteError />,
+    children: [
+      {
+        errorElement: <RouteError />,
+        children: [
+          { index: true, lazy: () => import('./routes/home.tsx').then((m) => ({ Component: m.HomeRoute })) },
+          { path: paths.catalogue.path, lazy: () => import('./routes/catalogue.tsx').then((m) => ({ Component: m.CatalogueRoute })) },
+          { path: paths.partNew.path, lazy: () => import('./routes/part-edit.tsx').then((m) => ({ Component: m.PartNewRoute })) },
+          { path: paths.part.path, lazy: () => import('./routes/part.tsx').then((m) => ({ Component: m.PartRoute })) },
+          { path: paths.partEdit.path, lazy: () => import('./routes/part-edit.tsx').then((m) => ({ Component: m.PartEditRoute })) },
+          { path: paths.planner.path, lazy: () => import('./routes/planner.tsx').then((m) => ({ Component: m.PlannerRoute })) },
+          { path: paths.plans.path, lazy: () => import('./routes/plans.tsx').then((m) => ({ Component: m.SavedPlansRoute })) },
+          { path: paths.plan.path, lazy: () => import('./routes/plan.tsx').then((m) => ({ Component: m.SavedPlanRoute })) },
+          { path: paths.rangeEdit.path, lazy: () => import('./routes/range-edit.tsx').then((m) => ({ Component: m.RangeEditRoute })) },
+          { path: paths.users.path, lazy: () => import('./routes/admin-users.tsx').then((m) => ({ Component: m.AdminUsersRoute })) },
+          { path: '*', lazy: () => import('./routes/not-found.tsx').then((m) => ({ Component: m.NotFoundRoute })) },
+        ],
+      },
+    ],
+  },
+]);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

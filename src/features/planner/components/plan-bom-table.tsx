@@ -1,0 +1,93 @@
+import { useMemo } from 'react';
+import { Link } from 'react-router';
+import type { ColumnDef } from '@tanstack/react-table';
+import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
+import { DataTable, type ColumnMeta } from '@/components/ui/data-table.tsx';
+import { StatusTag } from '@/components/ui/notice.tsx';
+import { paths } from '@/config/paths.ts';
+import { formatNumber } from '@/lib/format.ts';
+import { warehousesOf, type ShownLine, type ShownPlan } from '../lib/plan-view.ts';
+
+const right: ColumnMeta = { align: 'right' };
+
+export function StockStatus({ line }: { line: ShownLine }) {
+  if (!line.stock) return <span className="text-xs text-ink-soft">checking…</span>;
+  return line.stock.short > 0 ? (
+    <StatusTag tone="danger">short {formatNumber(line.stock.short)}</StatusTag>
+  ) : (
+    <StatusTag tone="good">enough</StatusTag>
+  );
+}
+
+/** The bill of materials: what to order, how it is packed, why each line is there, and whether stock covers it. */
+export function PlanBomTable({ plan }: { plan: ShownPlan }) {
+  const warehouseKey = warehousesOf(plan).join('|');
+  const columns = useMemo<ColumnDef<ShownLine>[]>(() => {
+    const warehouses = warehouseKey ? warehouseKey.split('|') : [];
+    return [
+      {
+        id: 'sku',
+        accessorKey: 'sku',
+        header: 'SKU',
+        cell: (c) => (
+          <Link to={paths.part.href(c.row.original.sku)} className="num whitespace-nowrap font-semibold text-ink hover:text-copper hover:underline">
+            {c.row.original.sku}
+          </Link>
+        ),
+      },
+      {
+        id: 'name',
+        accessorKey: 'name',
+        header: 'Part',
+        meta: { className: 'min-w-40' },
+        cell: (c) => (
+          <span>
+            {c.row.original.name}
+            <span className="block text-xs text-ink-soft">{CATEGORY_LABELS[c.row.original.category as CategoryCode] ?? c.row.original.category}</span>
+          </span>
+        ),
+      },
+      { id: 'qty', accessorKey: 'qtyUnits', header: 'Qty (units)', meta: right, cell: (c) => <span className="num">{formatNumber(c.row.original.qtyUnits)}</span> },
+      {
+        id: 'packs',
+        header: 'Packs × size',
+        enableSorting: false,
+        meta: right,
+        cell: (c) => (
+          <span className="num whitespace-nowrap">
+            {formatNumber(c.row.original.packs)} × {formatNumber(c.row.original.packSize)}
+          </span>
+        ),
+      },
+      { id: 'why', accessorKey: 'reason', header: 'Why', enableSorting: false, meta: { className: 'min-w-48 text-ink-soft' }, cell: (c) => <span className="text-xs leading-snug">{c.row.original.reason}</span> },
+      ...warehouses.map<ColumnDef<ShownLine>>((wh) => ({
+        id: `wh-${wh}`,
+        header: wh,
+        enableSorting: false,
+        meta: right,
+        cell: (c) => {
+          const a = c.row.original.stock?.availability.find((x) => x.warehouse === wh);
+          return <span className="num text-ink-soft">{a ? formatNumber(a.available) : '0'}</span>;
+        },
+      })),
+      {
+        id: 'available',
+        header: 'Available',
+        enableSorting: false,
+        meta: right,
+        cell: (c) => (
+          <span className="inline-flex items-center gap-2">
+            {c.row.original.stock && <span className="num">{formatNumber(c.row.original.stock.available)}</span>}
+            <StockStatus line={c.row.original} />
+          </span>
+        ),
+      },
+    ];
+  }, [warehouseKey]);
+  // A BOM is short and read whole: let the table grow with the page instead of scrolling inside it.
+  return (
+    <div className="[&>div]:max-h-none print:[&>div]:overflow-visible">
+      <DataTable label="Bill of materials" data={plan.bom} columns={columns} getRowId={(l) => l.sku} empty="No parts." />
+    </div>
+  );
+}

@@ -1,0 +1,107 @@
+import { useId } from 'react';
+import type { RangeDetail } from '@shared/contracts/stack-plans.ts';
+import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { Stepper } from '@/components/ui/stepper.tsx';
+import { formatNumber } from '@/lib/format.ts';
+import type { InverterOption } from '../api/get-inverters.ts';
+import type { PlanMode, PlannerParams } from '../hooks/use-planner-params.ts';
+
+export function inverterWindow(i: Pick<InverterOption, 'batteryMinV' | 'batteryMaxV' | 'batteryInputs' | 'maxBatteryKwh'>) {
+  const inputs = `${i.batteryInputs} input${i.batteryInputs === 1 ? '' : 's'}`;
+  const kwh = i.maxBatteryKwh != null ? `, up to ${formatNumber(i.maxBatteryKwh)} kWh` : '';
+  return `${formatNumber(i.batteryMinV)}–${formatNumber(i.batteryMaxV)} V, ${inputs}${kwh}`;
+}
+
+const MODES: { value: PlanMode; label: string }[] = [
+  { value: 'modules', label: 'Module count' },
+  { value: 'target', label: 'Target usable kWh' },
+];
+
+interface PlanControlsProps {
+  range: RangeDetail;
+  params: PlannerParams;
+  update: (patch: Partial<PlannerParams>) => void;
+  inverters: InverterOption[];
+}
+
+/** What to plan: a module count (and stacks) or a usable-energy target, and optionally the inverter. */
+export function PlanControls({ range, params, update, inverters }: PlanControlsProps) {
+  const modeName = useId();
+  const listed = new Set(range.inverterSkus);
+  const forRange = inverters.filter((i) => listed.has(i.sku));
+  const others = inverters.filter((i) => !listed.has(i.sku));
+  const chosen = inverters.find((i) => i.sku === params.inverter) ?? null;
+  const option = (i: InverterOption) => (
+    <option key={i.sku} value={i.sku}>
+      {`${i.name} (${i.sku}) — ${formatNumber(i.batteryMinV)}–${formatNumber(i.batteryMaxV)} V${i.lifecycle !== 'active' ? ` · ${i.lifecycle}` : ''}`}
+    </option>
+  );
+
+  return (
+    <div className="flex flex-wrap items-start gap-x-6 gap-y-3">
+      <fieldset>
+        <legend className="mb-1 block text-xs font-semibold text-ink-soft">Plan by</legend>
+        <div className="inline-flex rounded-md border border-line bg-card p-0.5">
+          {MODES.map((m) => (
+            <label key={m.value} className={`cursor-pointer rounded px-3 py-1 text-sm has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-copper ${params.mode === m.value ? 'bg-ink font-semibold text-paper' : 'text-ink hover:bg-paper'}`}>
+              <input type="radio" name={modeName} value={m.value} checked={params.mode === m.value} onChange={() => update({ mode: m.value })} className="sr-only" />
+              {m.label}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+
+      {params.mode === 'modules' ? (
+        <>
+          <Stepper
+            label="Modules per stack"
+            value={params.modules}
+            onChange={(modules) => update({ modules })}
+            min={range.minModules}
+            max={range.maxModules}
+            hint={`${range.minModules}–${range.maxModules} for this range`}
+            lessLabel="One module fewer"
+            moreLabel="One module more"
+          />
+          {range.maxStacks > 1 && (
+            <Stepper
+              label="Stacks in parallel"
+              value={params.stacks}
+              onChange={(stacks) => update({ stacks })}
+              min={1}
+              max={range.maxStacks}
+              hint={`1–${range.maxStacks}`}
+              lessLabel="One stack fewer"
+              moreLabel="One stack more"
+            />
+          )}
+        </>
+      ) : (
+        <TextField
+          label="Target usable energy (kWh)"
+          type="number"
+          inputMode="decimal"
+          min={0}
+          step={0.1}
+          mono
+          className="w-48"
+          value={params.kwh}
+          onChange={(e) => update({ kwh: e.target.value })}
+          hint="The fewest stacks, then modules, that reach it"
+        />
+      )}
+
+      <SelectField
+        label="Inverter (optional)"
+        className="min-w-72 max-w-xl flex-1"
+        value={params.inverter ?? ''}
+        onChange={(e) => update({ inverter: e.target.value || null })}
+        hint={chosen ? <>Battery window <span className="num">{inverterWindow(chosen)}</span></> : 'Checks the battery voltage window and inputs'}
+      >
+        <option value="">No inverter</option>
+        {forRange.length > 0 && <optgroup label="Listed for this range">{forRange.map(option)}</optgroup>}
+        {others.length > 0 && <optgroup label="Other inverters">{others.map(option)}</optgroup>}
+      </SelectField>
+    </div>
+  );
+}

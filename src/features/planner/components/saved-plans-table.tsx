@@ -1,0 +1,63 @@
+import { useMemo } from 'react';
+import { Link } from 'react-router';
+import type { ColumnDef } from '@tanstack/react-table';
+import type { SavedPlan } from '@shared/contracts/stack-plans.ts';
+import { DataTable } from '@/components/ui/data-table.tsx';
+import { paths } from '@/config/paths.ts';
+import { formatNumber } from '@/lib/format.ts';
+
+/** Draft plans, newest first; a row opens the plan recomputed with today's stock. */
+export function SavedPlansTable({ plans, onOpen, showCustomer }: { plans: SavedPlan[]; onOpen: (p: SavedPlan) => void; showCustomer: boolean }) {
+  const columns = useMemo<ColumnDef<SavedPlan>[]>(
+    () => [
+      {
+        id: 'name',
+        accessorKey: 'name',
+        header: 'Plan',
+        cell: (c) => (
+          <Link to={paths.plan.href(c.row.original.id)} tabIndex={-1} onClick={(e) => e.stopPropagation()} className="font-semibold hover:text-copper hover:underline">
+            {c.row.original.name}
+          </Link>
+        ),
+      },
+      ...(showCustomer ? [{ id: 'customer', accessorKey: 'companyName', header: 'Customer' } satisfies ColumnDef<SavedPlan>] : []),
+      {
+        id: 'site',
+        header: 'Site',
+        accessorFn: (p) => [p.siteSuburb, p.sitePostcode].filter(Boolean).join(' '),
+        cell: (c) => c.getValue<string>() || <span className="text-ink-soft">—</span>,
+      },
+      { id: 'range', accessorKey: 'rangeName', header: 'Range' },
+      {
+        id: 'layout',
+        accessorFn: (p) => p.stacks * 100 + p.modulesPerStack,
+        cell: (c) => (
+          <span className="num whitespace-nowrap">
+            {c.row.original.stacks} × {c.row.original.modulesPerStack}
+          </span>
+        ),
+        meta: { className: 'whitespace-nowrap' },
+        header: () => (
+          <span>
+            Layout <span className="normal-case">(stacks × modules)</span>
+          </span>
+        ),
+      },
+      {
+        id: 'usable',
+        accessorKey: 'usableKwh',
+        header: 'Usable',
+        meta: { align: 'right' },
+        cell: (c) => (
+          <span className="whitespace-nowrap">
+            <span className="num">{formatNumber(c.row.original.usableKwh)}</span> kWh
+          </span>
+        ),
+      },
+      { id: 'by', accessorKey: 'createdBy', header: 'Planned by' },
+      { id: 'created', accessorKey: 'createdAt', header: 'Saved', cell: (c) => <span className="num whitespace-nowrap">{c.row.original.createdAt.slice(0, 10)}</span> },
+    ],
+    [showCustomer],
+  );
+  return <DataTable label="Saved plans" data={plans} columns={columns} getRowId={(p) => p.id} onOpen={onOpen} empty="No saved plans yet. Plan a stack and save it as a draft." />;
+}

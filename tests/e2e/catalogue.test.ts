@@ -1,0 +1,148 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Locator, Page } from 'playwright-core';
+import { startBrowserHarness, signInAs, type BrowserHarness } from './support.ts';
+import { parts } from '../../seed/data/catalogue.ts';
+
+let h: BrowserHarness;
+beforeAll(async () => {
+  h = await startBrowserHarness();
+});
+afterAll(() => h?.close());
+
+const module5 = parts.find((p) => p.sku === 'HLM-TOR-M5')!;
+const endCap = parts.find((p) => p.sku === 'HLM-TOR-EC')!;
+
+const resultCount = async (page: Page) => Number((await page.getByTestId('result-count').textContent())?.replace(/[^\d]/g, ''));
+const resultsTable = (page: Page) => page.getByRole('table', { name: 'Parts' });
+const categoryCells = (page: Page) => resultsTable(page).locator('tbody tr').locator('td:nth-child(4)');
+
+async function openCatalogue(page: Page) {
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Catalogue' }).click();
+  await page.waitForURL(/\/catalogue$/);
+  await page.getByRole('heading', { level: 1, name: 'Catalogue' }).waitFor();
+  // The whole catalogue shows before any search.
+  await page.getByTestId('result-count').filter({ hasText: /\d+ parts/ }).waitFor();
+}
+
+/** Waits until every row matches: results update after a short pause in typing. */
+async function expectRows(page: Page, test: (texts: string[]) => boolean, what: string) {
+  await expect
+    .poll(async () => test(await resultsTable(page).locator('tbody tr').allTextContents()), { timeout: 10_000, message: what })
+    .toBe(true);
+}
+
+async function fieldMessage(field: Locator) {
+  const id = await field.getAttribute('aria-describedby');
+  return id ? field.page().locator(`[id="${id}"]`).textContent() : null;
+}
+
+describe('catalogue search (trade desk)', () => {
+  it('searches as you type, forgives a typo, filters by category and opens a part by keyboard', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'sales@stackyard.test');
+    await openCatalogue(page);
+    const all = await resultCount(page);
+    const search = page.getByLabel('Search the catalogue');
+    // Focused on arrival: typing goes straight into the search box.
+    expect(await search.evaluate((el) => el === document.activeElement)).toBe(true);
+
+    await page.keyboard.type('cable cov');
+    await page.waitForURL(/q=cable\+cov/);
+    await expect.poll(() => resultCount(page)).toBeLessThan(all);
+    await expectRows(page, (rows) => rows.length > 0 && rows.some((r) => /cable-protection cover/i.test(r)), 'a cable-protection cover among the results');
+
+    await search.fill('controler');
+    await page.waitForURL(/q=controler/);
+    await expectRows(page, (rows) => rows.length > 0 && rows.some((r) => /controller/i.test(r)), 'controllers despite the typo');
+
+    // Category facet on the whole catalogue: fewer parts, all of them controllers.
+    await search.fill('');
+    await expect.poll(() => resultCount(page)).toBe(all);
+    const categories = page.getByRole('region', { name: 'Category' });
+    const controllerFacet = categories.getByRole('button', { name: /^Controller\s+\d+$/ });
+    const facetCount = Number((await controllerFacet.textContent())?.replace(/[^\d]/g, ''));
+    await controllerFacet.click();
+    await expect.poll(() => resultCount(page)).toBe(facetCount);
+    expect(facetCount).toBeLessThan(all);
+    expect(facetCount).toBeGreaterThan(0);
+    expect(new Set(await categoryCells(page).allTextContents())).toEqual(new Set(['Controller']));
+    expect(page.url()).toContain('category=controller');
+    expect(await page.getByRole('button', { name: 'Remove filter Category: Controller' }).isVisible()).toBe(true);
+
+    // Back removes the filter again: it lives in the URL.
+    await page.goBack();
+    await expect.poll(() => resultCount(page)).toBe(all);
+    await page.goForward();
+    await expect.poll(() => resultCount(page)).toBe(facetCount);
+
+    // "/" focuses the search box from anywhere, ArrowDown enters the results, Enter opens the row.
+    await page.getByRole('heading', { level: 1 }).click();
+    await page.keyboard.press('/');
+    expect(await search.evaluate((el) => el === document.activeElement)).toBe(true);
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('ArrowDown');
+    const focusedSku = await page.evaluate(() => document.activeElement?.querySelector('td:nth-child(2)')?.textContent ?? null);
+    expect(focusedSku).toMatch(/^[A-Z0-9]/);
+    await page.keyboard.press('Enter');
+    await page.waitForURL(new RegExp(`/catalogue/${focusedSku}$`));
+    expect(await page.getByTestId('part-sku').textContent()).toBe(focusedSku);
+    expect(await page.title()).toMatch(/ · Stackyard$/);
+  });
+
+  it('jumps straight to a part when a scanner types its SKU and Enter', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'sales@stackyard.test');
+    await page.goto('/catalogue');
+    await page.getByTestId('result-count').filter({ hasText: /\d+ parts/ }).waitFor();
+    // A keyboard-wedge scanner: the whole code in a burst, then Enter, faster than the typing pause.
+    await page.keyboard.type(module5.sku, { delay: 2 });
+    await page.keyboard.press('Enter');
+    await page.waitForURL(`**/catalogue/${module5.sku}`);
+    await page.getByRole('heading', { level: 1, name: module5.name }).waitFor();
+    // A module carries cells: the dangerous-goods reminder is on its page, and sales sees its cost.
+    await page.getByText('Contains lithium cells').waitFor();
+    expect(await page.getByText('two-person lift').count()).toBeGreaterThan(0);
+    expect(await page.getByText('Cost (ex GST)').count()).toBe(1);
+    expect(await page.getByRole('link', { name: 'Edit' }).count()).toBe(0);
+
+    // The same from its GTIN.
+    await page.goto('/catalogue');
+    await page.getByTestId('result-count').filter({ hasText: /\d+ parts/ }).waitFor();
+    await page.keyboard.type(module5.gtin!, { delay: 2 });
+    await page.keyboard.press('Enter');
+    await page.waitForURL(`**/catalogue/${module5.sku}`);
+  });
+});
+
+describe('editing a part (purchasing)', () => {
+  it('changes a part’s name and refuses an invalid GTIN next to the field', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'purchasing@stackyard.test');
+    await page.goto(`/catalogue/${endCap.sku}`);
+    await page.getByRole('heading', { level: 1, name: endCap.name }).waitFor();
+    await page.getByRole('link', { name: 'Edit', exact: true }).click();
+    await page.waitForURL(`**/catalogue/${endCap.sku}/edit`);
+    const form = page.getByRole('form', { name: `Edit ${endCap.sku}` });
+
+    // A GTIN with its check digit off by one is refused beside the GTIN field, before anything is sent.
+    const gtin = form.getByLabel('GTIN');
+    const good = endCap.gtin!;
+    const bad = good.slice(0, -1) + String((Number(good.slice(-1)) + 1) % 10);
+    await gtin.fill(bad);
+    await form.getByRole('button', { name: 'Save changes' }).click();
+    await expect.poll(() => fieldMessage(gtin)).toContain('check digit is wrong');
+    expect(await gtin.getAttribute('aria-invalid')).toBe('true');
+    expect(page.url()).toContain('/edit');
+
+    const renamed = `${endCap.name} (revised)`;
+    await gtin.fill(good);
+    await form.getByLabel('Name', { exact: true }).fill(renamed);
+    await form.getByRole('button', { name: 'Save changes' }).click();
+    await page.waitForURL(new RegExp(`/catalogue/${endCap.sku}$`));
+    await page.getByRole('heading', { level: 1, name: renamed }).waitFor();
+
+    // The search finds it under its new name.
+    await page.goto(`/catalogue?q=${encodeURIComponent('revised')}`);
+    await expectRows(page, (rows) => rows.some((r) => r.includes(renamed)), 'the renamed part in the results');
+  });
+});
