@@ -34,7 +34,7 @@ let skipped = 0;
 if (existsSync(report)) {
   const r = JSON.parse(readFileSync(report, 'utf8'));
   passed = r.numPassedTests;
-  failed = r.numFailedTests + (r.numFailedTestSuites ?? 0) - countSuitesWithFailedTests(r);
+  failed = r.numFailedTests + filesThatFailedToRun(r);
   skipped = r.numPendingTests + r.numTodoTests;
 } else {
   failed = 1;
@@ -43,7 +43,7 @@ if (vitest.status !== 0 && failed === 0) failed = 1;
 console.log(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}`);
 process.exit(failed > 0 ? 1 : 0);
 
-/** A suite that failed to load counts as one failure; a suite whose tests failed is already counted. */
-function countSuitesWithFailedTests(r) {
-  return r.testResults.filter((s) => s.status === 'failed' && s.assertionResults.some((a) => a.status === 'failed')).length;
+/** A test file that failed without a failing test (it did not load, or a hook threw) counts as one failure. */
+function filesThatFailedToRun(r) {
+  return r.testResults.filter((f) => f.status === 'failed' && !f.assertionResults.some((a) => a.status === 'failed')).length;
 }

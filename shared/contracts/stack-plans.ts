@@ -65,7 +65,7 @@ export const StackPlanSchema = z.object({
   cautions: z.array(CautionSchema),
   bom: z.array(PlanBomLineSchema),
   units: z.array(z.object({ kind: z.enum(['controller', 'module', 'feet']), sku: z.string().nullable(), name: z.string(), heightMm: z.number(), carriesCells: z.boolean() })),
-  /** Bracket heights from the floor (mm), for the drawing. */
+  /** The widest unit, for drawing the stack to scale. */
   unitWidthMm: z.number(),
 });
 export type StackPlanResult = z.infer<typeof StackPlanSchema>;

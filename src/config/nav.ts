@@ -6,12 +6,14 @@ export interface NavItem {
   href: string;
   /** Shown only to actors with this ability (from /api/me). */
   needs?: Ability;
+  /** One line for the home page card. */
+  blurb?: string;
 }
 
 export const NAV: NavItem[] = [
   { label: 'Home', href: paths.home.href() },
-  { label: 'Catalogue', href: paths.catalogue.href(), needs: 'catalogue.view' },
-  { label: 'Stack planner', href: paths.planner.href(), needs: 'plans.create' },
-  { label: 'Saved plans', href: paths.plans.href(), needs: 'plans.create' },
-  { label: 'Users', href: paths.users.href(), needs: 'users.manage' },
+  { label: 'Catalogue', href: paths.catalogue.href(), needs: 'catalogue.view', blurb: 'Find any part by name, SKU, GTIN or supplier code; press / to search, or scan.' },
+  { label: 'Stack planner', href: paths.planner.href(), needs: 'plans.create', blurb: 'Turn a range and a stack size, or a target usable kWh, into a complete bill of materials.' },
+  { label: 'Saved plans', href: paths.plans.href(), needs: 'plans.create', blurb: 'Draft plans for your sites, ready to reopen, print or export.' },
+  { label: 'Users', href: paths.users.href(), needs: 'users.manage', blurb: 'Create sign-ins, set roles and companies, reset passwords, deactivate.' },
 ];

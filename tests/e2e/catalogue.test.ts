@@ -86,7 +86,7 @@ describe('catalogue search (trade desk)', () => {
     await page.keyboard.press('Enter');
     await page.waitForURL(new RegExp(`/catalogue/${focusedSku}$`));
     expect(await page.getByTestId('part-sku').textContent()).toBe(focusedSku);
-    expect(await page.title()).toMatch(/ · Stackyard$/);
+    await expect.poll(() => page.title()).toMatch(/ · Stackyard$/);
   });
 
   it('jumps straight to a part when a scanner types its SKU and Enter', async () => {

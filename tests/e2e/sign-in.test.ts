@@ -21,7 +21,7 @@ describe('signing in', () => {
     const page = await h.newPage();
     await page.goto('/admin/users');
     await page.waitForURL(/\/sign-in\?redirectTo=%2Fadmin%2Fusers/);
-    expect(await page.title()).toBe('Sign in · Stackyard');
+    await expect.poll(() => page.title()).toBe('Sign in · Stackyard');
   });
 
   it('explains a wrong password', async () => {

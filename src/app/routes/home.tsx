@@ -29,6 +29,7 @@ export function HomeRoute() {
           <Link key={l.href} to={l.href} className="block">
             <Card className="h-full hover:border-copper">
               <h2 className="font-semibold">{l.label}</h2>
+              {l.blurb && <p className="mt-1 text-sm text-ink-soft">{l.blurb}</p>}
             </Card>
           </Link>
         ))}
