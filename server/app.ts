@@ -22,7 +22,8 @@ import { systemRoutes } from './routes/system.ts';
 import { userRoutes } from './routes/users.ts';
 import { partRoutes } from './routes/parts.ts';
 import { stackPlanRoutes } from './routes/stack-plans.ts';
-import { createPlannerService, type PlannerService } from './services/planner.ts';
+import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerService } from './services/planner.ts';
+import { createTtlCache } from './lib/ttl-cache.ts';
 
 export interface AppOptions {
   db: Db;
@@ -46,13 +47,14 @@ export interface AppDeps extends AppOptions {
 /** Services built from the injected side effects; shared by the app, CLI tasks and benchmarks. */
 export function createServices(options: AppOptions): AppDeps {
   const partsIndex = createPartsIndex(options.search);
+  const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
   return {
     ...options,
     partsIndex,
     users: createUserService(options),
-    catalogue: createCatalogueService({ db: options.db, partsIndex }),
+    catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
     media: createMediaService({ db: options.db, files: options.files }),
-    planner: createPlannerService({ db: options.db }),
+    planner: createPlannerService({ db: options.db, rangeCache }),
   };
 }
 
@@ -102,8 +104,11 @@ export function createApp(options: AppOptions) {
   userRoutes(api, deps);
   partRoutes(api, deps);
   stackPlanRoutes(api, deps);
+  // Routes are fixed once the app is built, so the document is generated once.
+  let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {
-    res.json(api.document());
+    openapi ??= api.document();
+    res.json(openapi);
   });
   router.use(apiNotFound);
   router.use(errorHandler);

@@ -42,6 +42,9 @@ export function createAuth({ db, baseURL, secret, trustedOrigins, signInLimitPer
         account: schema.account,
         verification: schema.verification,
         rateLimit: schema.rateLimit,
+        userRelations: schema.userRelations,
+        sessionRelations: schema.sessionRelations,
+        accountRelations: schema.accountRelations,
       },
     }),
     emailAndPassword: { enabled: true, disableSignUp: true, minPasswordLength: 10, maxPasswordLength: 128 },
@@ -57,7 +60,10 @@ export function createAuth({ db, baseURL, secret, trustedOrigins, signInLimitPer
     advanced: {
       useSecureCookies: baseURL.startsWith('https://'),
       ipAddress: { ipAddressHeaders: [CLIENT_IP_HEADER] },
+      // One query (session joined to user) per signed-in request instead of two.
+      database: { joins: true },
     },
+    experimental: { instrumentation: { enabled: false } },
     telemetry: { enabled: false },
     plugins: [admin({ ac, roles, defaultRole: 'installer', adminRoles: ['admin'] })],
   });

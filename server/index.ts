@@ -15,6 +15,9 @@ const index = await createServices(context).partsIndex.ensure(context.db).catch(
 if (index?.rebuilt) context.logger.info(`search index rebuilt with ${index.documents} parts`);
 
 const server = app.listen(env.PORT, env.HOST, () => context.logger.info(`Stackyard listening on ${context.trustedOrigins[0]}`));
+// Longer than a load balancer's idle timeout, so the balancer (not us) closes idle connections.
+server.keepAliveTimeout = 65_000;
+server.headersTimeout = 66_000;
 const stop = () => {
   server.close();
   void context.db.$client.end();

@@ -148,9 +148,15 @@ export function createPartsIndex(search: SearchClient) {
 
     /** Re-sends the given parts (all when omitted) to the index, and waits until it has them. */
     async sync(db: DbOrTx, ids?: string[]) {
-      const docs = await documentsFor(db, ids);
-      for (let i = 0; i < docs.length; i += 5000) await check(index.addDocuments(docs.slice(i, i + 5000)));
-      return docs.length;
+      // A full sync goes in batches, so a large catalogue never sits in memory all at once.
+      const all = ids ?? (await db.select({ id: parts.id }).from(parts).orderBy(parts.id)).map((r) => r.id);
+      let sent = 0;
+      for (let i = 0; i < all.length; i += 5000) {
+        const docs = await documentsFor(db, all.slice(i, i + 5000));
+        if (docs.length) await check(index.addDocuments(docs));
+        sent += docs.length;
+      }
+      return sent;
     },
 
     async remove(ids: string[]) {

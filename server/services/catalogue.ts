@@ -10,6 +10,8 @@ import type { PartInputParsed, PartListQuery } from '@shared/contracts/parts.ts'
 
 const FACETS = ['category', 'maker', 'ranges', 'lifecycle', 'inStock'] as const;
 type Facet = (typeof FACETS)[number];
+/** What a result row needs; long texts stay in the engine. */
+const SUMMARY_FIELDS = ['id', 'sku', 'name', 'category', 'maker', 'makerName', 'gtin', 'lifecycle', 'ranges', 'packSize', 'unit', 'listPriceCents', 'available', 'inStock', 'thumbnailId'] as const;
 const SORTS: Record<string, string> = { sku: 'sku', name: 'name', category: 'category', maker: 'maker' };
 
 /** A filter value quoted for the search engine's filter syntax. */
@@ -17,7 +19,8 @@ const quote = (v: string) => `"${v.replace(/["\\]/g, '\\$&')}"`;
 
 export type PartRow = typeof parts.$inferSelect;
 
-export function createCatalogueService({ db, partsIndex }: { db: Db; partsIndex: PartsIndex }) {
+/** `onPartsChanged` lets caches built from part data (the planner's ranges) drop what they hold. */
+export function createCatalogueService({ db, partsIndex, onPartsChanged = () => {} }: { db: Db; partsIndex: PartsIndex; onPartsChanged?: () => void }) {
   async function findPart(sku: string) {
     const [p] = await db.select().from(parts).where(eq(parts.sku, sku.toUpperCase()));
     if (!p) throw new NotFoundError(`Part ${sku}`);
@@ -102,7 +105,7 @@ export function createCatalogueService({ db, partsIndex }: { db: Db; partsIndex:
           await tx.insert(partSupplierSkus).values(input.supplierSkus.map((s) => ({ partId: row!.id, supplierId: refs.supplierIds.get(s.supplier)!, supplierSku: s.sku })));
         await partsIndex.sync(tx, [row!.id]);
         return row!;
-      });
+      }).finally(onPartsChanged);
     } catch (e) {
       throw uniqueViolation(e) ?? e;
     }
@@ -145,6 +148,7 @@ export function createCatalogueService({ db, partsIndex }: { db: Db; partsIndex:
           sort,
           limit: query.pageSize,
           offset: (query.page - 1) * query.pageSize,
+          attributesToRetrieve: [...SUMMARY_FIELDS],
         }),
         exactMatch(query.q),
         ...active.map((f) => partsIndex.index.search(query.q, { filter: filterWithout(f), facets: [f], limit: 0 })),

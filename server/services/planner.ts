@@ -4,6 +4,7 @@ import { companies, makers, parts, rangeInverters, ranges, stackPlans, stockLeve
 import { authorize, type Actor } from '../policies/actor.ts';
 import { can } from '@shared/roles.ts';
 import { NotFoundError, ValidationError } from '../errors.ts';
+import { createTtlCache, type TtlCache } from '../lib/ttl-cache.ts';
 import { planStack, type PlannerInverter, type PlannerPart, type PlannerRange, type PlannerUnit } from '@shared/domain/planner.ts';
 import { BomRulesSchema, unknownRuleSkus } from '@shared/domain/bom-rules.ts';
 import type { RangeInput, SavePlanInput, StackPlanRequest } from '@shared/contracts/stack-plans.ts';
@@ -43,41 +44,48 @@ function inverterFrom(p: PartRow): PlannerInverter {
 
 const plannerPart = (p: PartRow): PlannerPart => ({ sku: p.sku, name: p.name, category: p.category, packSize: p.packSize, massKg: p.massKg });
 
-export function createPlannerService({ db }: { db: Db }) {
-  /** A range with every part its planner needs: controller, module, rule parts and compatible inverters. */
-  async function loadRange(idOrCode: string) {
-    const [row] = await db
-      .select({ range: ranges, makerCode: makers.code, makerName: makers.name })
-      .from(ranges)
-      .innerJoin(makers, eq(makers.id, ranges.makerId))
-      .where(UUID_RE.test(idOrCode) ? eq(ranges.id, idOrCode) : eq(ranges.code, idOrCode));
-    if (!row) throw new NotFoundError('That range');
-    const r = row.range;
-    const rules = BomRulesSchema.parse(r.rules);
-    const ruleSkus = rules.map((x) => x.sku);
-    const [partRows, inverterRows] = await Promise.all([
-      db.select().from(parts).where(ruleSkus.length ? or(inArray(parts.id, [r.controllerId, r.moduleId]), inArray(parts.sku, ruleSkus)) : inArray(parts.id, [r.controllerId, r.moduleId])),
-      db.select({ part: parts }).from(rangeInverters).innerJoin(parts, eq(parts.id, rangeInverters.inverterId)).where(eq(rangeInverters.rangeId, r.id)).orderBy(asc(parts.sku)),
-    ]);
-    const controller = partRows.find((p) => p.id === r.controllerId)!;
-    const module = partRows.find((p) => p.id === r.moduleId)!;
-    const partsBySku: Record<string, PlannerPart> = {};
-    for (const p of partRows) partsBySku[p.sku] = plannerPart(p);
-    const planner: PlannerRange = {
-      id: r.id,
-      name: r.name,
-      connection: r.connection,
-      minModules: r.minModules,
-      maxModules: r.maxModules,
-      maxStacks: r.maxStacks,
-      baseHeightMm: r.baseHeightMm,
-      defaultDodPct: r.defaultDodPct,
-      controller: unitFrom(controller),
-      module: unitFrom(module),
-      rules,
-    };
-    return { row: r, makerCode: row.makerCode, makerName: row.makerName, planner, parts: partsBySku, inverters: inverterRows.map((x) => x.part), controller, module };
-  }
+/** A range with every part its planner needs: controller, module, rule parts and compatible inverters. */
+async function readRange(db: Db, idOrCode: string) {
+  const [row] = await db
+    .select({ range: ranges, makerCode: makers.code, makerName: makers.name })
+    .from(ranges)
+    .innerJoin(makers, eq(makers.id, ranges.makerId))
+    .where(UUID_RE.test(idOrCode) ? eq(ranges.id, idOrCode) : eq(ranges.code, idOrCode));
+  if (!row) throw new NotFoundError('That range');
+  const r = row.range;
+  const rules = BomRulesSchema.parse(r.rules);
+  const ruleSkus = rules.map((x) => x.sku);
+  const [partRows, inverterRows] = await Promise.all([
+    db.select().from(parts).where(ruleSkus.length ? or(inArray(parts.id, [r.controllerId, r.moduleId]), inArray(parts.sku, ruleSkus)) : inArray(parts.id, [r.controllerId, r.moduleId])),
+    db.select({ part: parts }).from(rangeInverters).innerJoin(parts, eq(parts.id, rangeInverters.inverterId)).where(eq(rangeInverters.rangeId, r.id)).orderBy(asc(parts.sku)),
+  ]);
+  const controller = partRows.find((p) => p.id === r.controllerId)!;
+  const module = partRows.find((p) => p.id === r.moduleId)!;
+  const partsBySku: Record<string, PlannerPart> = {};
+  for (const p of partRows) partsBySku[p.sku] = plannerPart(p);
+  const planner: PlannerRange = {
+    id: r.id,
+    name: r.name,
+    connection: r.connection,
+    minModules: r.minModules,
+    maxModules: r.maxModules,
+    maxStacks: r.maxStacks,
+    baseHeightMm: r.baseHeightMm,
+    defaultDodPct: r.defaultDodPct,
+    controller: unitFrom(controller),
+    module: unitFrom(module),
+    rules,
+  };
+  return { row: r, makerCode: row.makerCode, makerName: row.makerName, planner, parts: partsBySku, inverters: inverterRows.map((x) => x.part), controller, module };
+}
+
+export type LoadedRange = Awaited<ReturnType<typeof readRange>>;
+
+/** Range definitions change rarely and are read by every plan; instances see an edit within this time. */
+export const RANGE_CACHE_MS = 10_000;
+
+export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS) }: { db: Db; rangeCache?: TtlCache<LoadedRange> }) {
+  const loadRange = (idOrCode: string) => rangeCache.get(idOrCode, () => readRange(db, idOrCode));
 
   async function findInverter(sku: string) {
     const [p] = await db.select().from(parts).where(eq(parts.sku, sku.toUpperCase()));
@@ -250,6 +258,7 @@ export function createPlannerService({ db }: { db: Db }) {
         await tx.delete(rangeInverters).where(eq(rangeInverters.rangeId, current.row.id));
         if (input.inverterSkus.length) await tx.insert(rangeInverters).values(input.inverterSkus.map((s) => ({ rangeId: current.row.id, inverterId: bySku.get(s.toUpperCase())!.id })));
       });
+      rangeCache.clear();
       return this.rangeDetail(actor, current.row.id);
     },
   };

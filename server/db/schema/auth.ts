@@ -1,5 +1,6 @@
 // Tables used by better-auth (email + password, admin plugin, database rate limits).
 // Shape follows the library's generated schema; regenerate when auth plugins change.
+import { relations } from 'drizzle-orm';
 import { boolean, integer, bigint, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { companies } from './companies.ts';
 
@@ -73,3 +74,8 @@ export const rateLimit = pgTable('rate_limit', {
   count: integer().notNull(),
   lastRequest: bigint({ mode: 'number' }).notNull(),
 });
+
+// Relations let better-auth read a session and its user in one joined query.
+export const userRelations = relations(user, ({ many }) => ({ sessions: many(session), accounts: many(account) }));
+export const sessionRelations = relations(session, ({ one }) => ({ user: one(user, { fields: [session.userId], references: [user.id] }) }));
+export const accountRelations = relations(account, ({ one }) => ({ user: one(user, { fields: [account.userId], references: [user.id] }) }));
