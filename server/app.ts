@@ -54,7 +54,7 @@ export function createServices(options: AppOptions): AppDeps {
     users: createUserService(options),
     catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
     media: createMediaService({ db: options.db, files: options.files }),
-    planner: createPlannerService({ db: options.db, rangeCache }),
+    planner: createPlannerService({ db: options.db, rangeCache, onRangeChanged: (ids) => partsIndex.sync(options.db, [...new Set(ids)]) }),
   };
 }
 

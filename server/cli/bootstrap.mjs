@@ -147,15 +147,19 @@ export function ensurePostgres({ name, port, databases = [] }) {
   };
 }
 
-/** Starts a TypeScript entry point under tsx as a child that ends with us. */
-export function spawnTs(entry, { env = {}, name } = {}) {
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, entry)], {
-    cwd: root,
-    env: { ...process.env, ...env },
-    stdio: 'inherit',
-  });
+/** Starts a TypeScript entry point under tsx (restarting on change with `watch`) as a child that ends with us. */
+export function spawnTs(entry, { env = {}, name, watch = false } = {}) {
+  const args = watch
+    ? [path.join(root, 'node_modules/tsx/dist/cli.mjs'), 'watch', '--clear-screen=false', path.join(root, entry)]
+    : ['--import', 'tsx', path.join(root, entry)];
+  return spawnChild(process.execPath, args, { env, name: name ?? entry });
+}
+
+/** A child process that ends with us; if it stops on its own, so do we. */
+export function spawnChild(cmd, args, { env = {}, name } = {}) {
+  const child = spawn(cmd, args, { cwd: root, env: { ...process.env, ...env }, stdio: 'inherit' });
   child.on('exit', (code, signal) => {
-    if (!shuttingDown && code !== 0) fail(`${name ?? entry} stopped unexpectedly (${signal ?? code}).`);
+    if (!shuttingDown && code !== 0) fail(`${name ?? cmd} stopped unexpectedly (${signal ?? code}).`);
   });
   children.push(child);
   return child;

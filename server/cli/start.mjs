@@ -3,7 +3,7 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { ensureNodeModules, ensurePostgres, fail, log, newestMtime, onShutdown, root, spawnTs, waitForHttp } from './bootstrap.mjs';
+import { ensureNodeModules, ensurePostgres, fail, log, newestMtime, onShutdown, root, spawnChild, spawnTs, waitForHttp } from './bootstrap.mjs';
 import { DEV_PG_PORT, DEV_SEARCH_PORT, DEMO_SIGN_INS } from './settings.mjs';
 
 const dev = process.argv.includes('--dev');
@@ -35,27 +35,30 @@ if (!process.env.MEILI_HOST) {
 }
 
 if (dev) {
-  spawnTs('server/index.ts', { name: 'API', env: { PORT: String(apiPort), NODE_ENV: 'development', PUBLIC_URL: `http://127.0.0.1:${port}` } });
-  // tsx watch restarts the API on change; Vite serves the client with HMR and proxies /api.
-  const vite = spawnSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), '--port', String(port), '--strictPort'], {
-    cwd: root, stdio: 'inherit', env: { ...process.env, API_PORT: String(apiPort) },
-  });
-  process.exit(vite.status ?? 0);
+  // The API restarts on change (tsx watch); Vite serves the client with HMR and proxies /api to it.
+  spawnTs('server/index.ts', { name: 'API', watch: true, env: { PORT: String(apiPort), NODE_ENV: 'development', PUBLIC_URL: `http://127.0.0.1:${port}` } });
+  spawnChild(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), '--port', String(port), '--strictPort'], { name: 'Vite', env: { API_PORT: String(apiPort) } });
+  log(`development: http://127.0.0.1:${port} (API on :${apiPort}); Ctrl-C stops everything.`);
+} else {
+  await serveBuilt();
 }
 
-const built = path.join(root, 'dist/client/index.html');
-const sourcesChanged = !existsSync(built) || newestMtime(['src', 'shared', 'index.html', 'vite.config.ts', 'package-lock.json', 'public']) > statSync(built).mtimeMs;
-if (sourcesChanged) {
-  log('building the client…');
-  const build = spawnSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
-  if (build.status !== 0) fail('the client build failed.');
+/** Production-like: build the client when its sources changed, then API and client on one port. */
+async function serveBuilt() {
+  const built = path.join(root, 'dist/client/index.html');
+  const sourcesChanged = !existsSync(built) || newestMtime(['src', 'shared', 'index.html', 'vite.config.ts', 'package-lock.json', 'public']) > statSync(built).mtimeMs;
+  if (sourcesChanged) {
+    log('building the client…');
+    const build = spawnSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+    if (build.status !== 0) fail('the client build failed.');
+  }
+
+  spawnTs('server/index.ts', { name: 'server', env: { PORT: String(port), NODE_ENV: process.env.NODE_ENV ?? 'production', LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' } });
+  await waitForHttp(`http://127.0.0.1:${port}/api/health`, 60_000).catch(() => fail('the server did not come up.'));
+
+  log('');
+  log(`Stackyard is running at http://127.0.0.1:${port}`);
+  log('Demo sign-ins (password: stackyard-demo):');
+  for (const u of DEMO_SIGN_INS) log(`  ${u.role.padEnd(11)} ${u.email}`);
+  log('Press Ctrl-C to stop.');
 }
-
-spawnTs('server/index.ts', { name: 'server', env: { PORT: String(port), NODE_ENV: process.env.NODE_ENV ?? 'production', LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' } });
-await waitForHttp(`http://127.0.0.1:${port}/api/health`, 60_000).catch(() => fail('the server did not come up.'));
-
-log('');
-log(`Stackyard is running at http://127.0.0.1:${port}`);
-log('Demo sign-ins (password: stackyard-demo):');
-for (const u of DEMO_SIGN_INS) log(`  ${u.role.padEnd(11)} ${u.email}`);
-log('Press Ctrl-C to stop.');

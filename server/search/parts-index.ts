@@ -2,7 +2,7 @@ import { inArray, eq, sql } from 'drizzle-orm';
 import type { Index } from 'meilisearch';
 import { CATEGORY_LABELS, ATTRIBUTE_FIELDS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
 import type { DbOrTx } from '../db/client.ts';
-import { makers, partMedia, parts, partSupplierSkus, ranges, stockLevels } from '../db/schema/index.ts';
+import { makers, partMedia, parts, partSupplierSkus, rangeInverters, ranges, stockLevels } from '../db/schema/index.ts';
 import type { SearchClient } from './client.ts';
 import { AppError } from '../errors.ts';
 
@@ -180,7 +180,7 @@ export function createPartsIndex(search: SearchClient) {
 
 export type PartsIndex = ReturnType<typeof createPartsIndex>;
 
-/** Range codes each part belongs to: as the range's controller, module, inverter or BOM rule part. */
+/** Range codes each part belongs to: as the range's controller, module, compatible inverter or BOM rule part. */
 async function rangeMembership(db: DbOrTx, partIds?: string[]) {
   const all = await db.select({ code: ranges.code, controllerId: ranges.controllerId, moduleId: ranges.moduleId, rules: ranges.rules }).from(ranges);
   const skuRows = await db.select({ id: parts.id, sku: parts.sku }).from(parts).where(partIds ? inArray(parts.id, partIds) : undefined);
@@ -191,6 +191,8 @@ async function rangeMembership(db: DbOrTx, partIds?: string[]) {
     const list = out.get(id) ?? [];
     if (!list.includes(code)) out.set(id, [...list, code]);
   };
+  const inverters = await db.select({ code: ranges.code, inverterId: rangeInverters.inverterId }).from(rangeInverters).innerJoin(ranges, eq(ranges.id, rangeInverters.rangeId));
+  for (const i of inverters) add(i.inverterId, i.code);
   for (const r of all) {
     add(r.controllerId, r.code);
     add(r.moduleId, r.code);

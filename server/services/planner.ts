@@ -84,7 +84,14 @@ export type LoadedRange = Awaited<ReturnType<typeof readRange>>;
 /** Range definitions change rarely and are read by every plan; instances see an edit within this time. */
 export const RANGE_CACHE_MS = 10_000;
 
-export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS) }: { db: Db; rangeCache?: TtlCache<LoadedRange> }) {
+export interface PlannerDeps {
+  db: Db;
+  rangeCache?: TtlCache<LoadedRange>;
+  /** Called with the parts a range edit touched, so their search documents can follow. */
+  onRangeChanged?: (partIds: string[]) => Promise<unknown>;
+}
+
+export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS), onRangeChanged = async () => {} }: PlannerDeps) {
   const loadRange = (idOrCode: string) => rangeCache.get(idOrCode, () => readRange(db, idOrCode));
 
   async function findInverter(sku: string) {
@@ -259,6 +266,10 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
         if (input.inverterSkus.length) await tx.insert(rangeInverters).values(input.inverterSkus.map((s) => ({ rangeId: current.row.id, inverterId: bySku.get(s.toUpperCase())!.id })));
       });
       rangeCache.clear();
+      // Parts that were in the range (controller, module, rule parts, inverters) and those now in it.
+      const oldSkus = Object.keys(current.parts);
+      const oldIds = (await db.select({ id: parts.id }).from(parts).where(inArray(parts.sku, oldSkus))).map((r) => r.id);
+      await onRangeChanged([...found.map((p) => p.id), ...oldIds, ...current.inverters.map((p) => p.id)]);
       return this.rangeDetail(actor, current.row.id);
     },
   };

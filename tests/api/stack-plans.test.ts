@@ -169,6 +169,18 @@ describe('range editing', () => {
     expect((row!.rules as unknown[]).length).toBe(input.rules.length);
   });
 
+  it('moves a part in or out of the range facet when its rules change', async () => {
+    const { admin, input } = await body('QRB-RIDGE');
+    await t.services.partsIndex.rebuild(t.db);
+    const accessory = 'HLM-ACC-BOLL';
+    const facet = async () => (await admin.get('/api/parts').query({ q: accessory })).body.data.find((p: { sku: string }) => p.sku === accessory).ranges;
+    expect(await facet()).not.toContain('QRB-RIDGE');
+    await admin.put('/api/ranges/QRB-RIDGE').send({ ...input, rules: [...input.rules, { sku: accessory, basis: 'per-system', qty: 1 }] }).expect(200);
+    expect(await facet()).toContain('QRB-RIDGE');
+    await admin.put('/api/ranges/QRB-RIDGE').send(input).expect(200);
+    expect(await facet()).not.toContain('QRB-RIDGE');
+  });
+
   it('saves a changed limit that the planner then enforces', async () => {
     const { admin, input } = await body('QRB-RIDGE');
     await admin.put('/api/ranges/QRB-RIDGE').send({ ...input, maxModules: 4 }).expect(200);
