@@ -39,6 +39,7 @@ type Quality = (typeof Quality)[keyof typeof Quality];
 const SEPARATORS = /[^\p{L}\p{N}]+/u;
 const MAX_QUERY_WORDS = 10;
 
+// eslint-disable-next-line no-control-regex -- the ASCII range starts at NUL
 const NON_ASCII = /[^\u0000-\u007f]/;
 
 /** Case- and accent-insensitive form used for terms and facet values, as Meilisearch normalizes. */
