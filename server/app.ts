@@ -10,7 +10,7 @@ import type { Db } from './db/client.ts';
 import { CLIENT_IP_HEADER, type Auth } from './auth.ts';
 import type { SearchClient } from './search/client.ts';
 import { Api } from './http/route.ts';
-import { sessionMiddleware } from './middleware/session.ts';
+import { createSessionCache, sessionMiddleware } from './middleware/session.ts';
 import { originCheck } from './middleware/origin-check.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
 import { createUserService, type UserService } from './services/users.ts';
@@ -37,6 +37,7 @@ export interface AppOptions {
 }
 
 export interface AppDeps extends AppOptions {
+  sessionCache: ReturnType<typeof createSessionCache>;
   users: UserService;
   partsIndex: PartsIndex;
   catalogue: CatalogueService;
@@ -48,10 +49,12 @@ export interface AppDeps extends AppOptions {
 export function createServices(options: AppOptions): AppDeps {
   const partsIndex = createPartsIndex(options.search);
   const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
+  const sessionCache = createSessionCache();
   return {
     ...options,
     partsIndex,
-    users: createUserService(options),
+    sessionCache,
+    users: createUserService({ ...options, onAccessChanged: sessionCache.clear }),
     catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
     media: createMediaService({ db: options.db, files: options.files }),
     planner: createPlannerService({ db: options.db, rangeCache, onRangeChanged: (ids) => partsIndex.sync(options.db, [...new Set(ids)]) }),
@@ -90,6 +93,8 @@ export function createApp(options: AppOptions) {
   // which would let another site sign a visitor in to an account of its choosing.
   app.use('/api/auth', originCheck(options.trustedOrigins), (req, _res, next) => {
     req.headers[CLIENT_IP_HEADER] = req.socket.remoteAddress ?? 'unknown';
+    // Signing out (here or everywhere) must take effect at once, not when remembered sessions expire.
+    if (req.method !== 'GET' && !req.path.startsWith('/sign-in')) deps.sessionCache.clear();
     next();
   });
   app.all('/api/auth/{*any}', toNodeHandler(options.auth));
@@ -99,7 +104,7 @@ export function createApp(options: AppOptions) {
   const api = new Api(router);
   router.use(originCheck(options.trustedOrigins));
   router.use(express.json({ limit: '1mb' }));
-  router.use(sessionMiddleware(options.auth));
+  router.use(sessionMiddleware(options.auth, deps.sessionCache));
   systemRoutes(api, deps);
   userRoutes(api, deps);
   partRoutes(api, deps);

@@ -18,7 +18,8 @@ export interface UserRecord {
   createdAt: Date;
 }
 
-export function createUserService({ db, auth }: { db: Db; auth: Auth }) {
+/** `onAccessChanged` runs after anything that changes who may do what (sessions remembered elsewhere drop). */
+export function createUserService({ db, auth, onAccessChanged = () => {} }: { db: Db; auth: Auth; onAccessChanged?: () => void }) {
   const columns = {
     id: user.id,
     name: user.name,
@@ -97,6 +98,7 @@ export function createUserService({ db, auth }: { db: Db; auth: Auth }) {
         // Deactivating or changing what someone may do ends their sessions at once.
         if (input.active === false || (input.role && input.role !== current.role)) await tx.delete(session).where(eq(session.userId, id));
       });
+      onAccessChanged();
       return find(id);
     },
 
@@ -114,6 +116,7 @@ export function createUserService({ db, auth }: { db: Db; auth: Auth }) {
         if (updated.length === 0) throw new NotFoundError('That user’s password sign-in');
         await tx.delete(session).where(eq(session.userId, id));
       });
+      onAccessChanged();
     },
 
     async companies(actor: Actor) {
