@@ -30,7 +30,8 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
   /** A scanned or typed code: exact SKU, GTIN (any length, compared as GTIN-14) or supplier SKU. */
   async function exactMatch(code: string): Promise<string | null> {
     const c = code.trim().toUpperCase();
-    if (c.length < 2 || c.length > 64 || /\s/.test(c)) return null;
+    // Codes (SKUs, GTINs, supplier SKUs) carry a digit or a separator; plain words skip the look-up.
+    if (c.length < 2 || c.length > 64 || /\s/.test(c) || !/[\d./-]/.test(c)) return null;
     const gtin14 = /^\d{8,14}$/.test(c) ? normalizeGtin14(c) : null;
     // Three indexed look-ups; the first that answers wins.
     const { rows } = await db.execute<{ sku: string }>(sql`
