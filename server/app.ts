@@ -32,6 +32,8 @@ export interface AppOptions {
   files: FileStore;
   logger: Logger;
   trustedOrigins: string[];
+  /** Express "trust proxy" setting: which hops may tell us the client's address. */
+  trustProxy?: string | number | boolean;
   /** Built client to serve; omitted in API-only tests. */
   clientDir?: string;
 }
@@ -65,7 +67,8 @@ export function createApp(options: AppOptions) {
   const deps = createServices(options);
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Behind a load balancer set TRUST_PROXY (e.g. 1 or its address) so req.ip is the real client.
+  app.set('trust proxy', options.trustProxy ?? 'loopback');
 
   app.use(
     pinoHttp({
@@ -92,7 +95,7 @@ export function createApp(options: AppOptions) {
   // Our origin check runs first: the library only checks origins when cookies are present,
   // which would let another site sign a visitor in to an account of its choosing.
   app.use('/api/auth', originCheck(options.trustedOrigins), (req, _res, next) => {
-    req.headers[CLIENT_IP_HEADER] = req.socket.remoteAddress ?? 'unknown';
+    req.headers[CLIENT_IP_HEADER] = req.ip ?? req.socket.remoteAddress ?? 'unknown';
     // Signing out (here or everywhere) must take effect at once, not when remembered sessions expire.
     if (req.method !== 'GET' && !req.path.startsWith('/sign-in')) deps.sessionCache.clear();
     next();

@@ -12,7 +12,8 @@ import { createLocalFileStore } from './storage/files.ts';
 export function buildContext(env: Env): AppOptions {
   const logger = pino({ level: env.LOG_LEVEL });
   const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST === '0.0.0.0' ? '127.0.0.1' : env.HOST}:${env.PORT}`;
-  const trustedOrigins = [...new Set([publicUrl, `http://localhost:${env.PORT}`, `http://127.0.0.1:${env.PORT}`])];
+  // Local addresses are trusted only for a local run; with PUBLIC_URL set, only that origin is.
+  const trustedOrigins = env.PUBLIC_URL ? [env.PUBLIC_URL] : [...new Set([publicUrl, `http://localhost:${env.PORT}`, `http://127.0.0.1:${env.PORT}`])];
   const db = createDb(env.DATABASE_URL);
   const auth = createAuth({
     db,
@@ -22,5 +23,5 @@ export function buildContext(env: Env): AppOptions {
     signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
   });
   const search = createSearchClient({ host: env.MEILI_HOST ?? 'http://127.0.0.1:7701', apiKey: env.MEILI_API_KEY });
-  return { db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
+  return { trustProxy: env.TRUST_PROXY === undefined ? undefined : /^\d+$/.test(env.TRUST_PROXY) ? Number(env.TRUST_PROXY) : env.TRUST_PROXY, db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
 }

@@ -13,6 +13,7 @@ const EnvSchema = z.object({
   SIGN_IN_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(10),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CLIENT_DIR: z.string().default('dist/client'),
+  TRUST_PROXY: z.string().optional(),
   DATA_DIR: z.string().default('.data/files'),
 });
 

@@ -3,7 +3,8 @@ import { z, type ZodType } from 'zod';
 import { OpenAPIRegistry, OpenApiGeneratorV31, type RouteConfig } from '@asteasolutions/zod-to-openapi';
 import { ErrorEnvelopeSchema } from '@shared/contracts/common.ts';
 import { UnauthenticatedError, ValidationError } from '../errors.ts';
-import type { Actor } from '../policies/actor.ts';
+import { authorize, type Actor } from '../policies/actor.ts';
+import type { Ability } from '@shared/roles.ts';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -24,6 +25,8 @@ export interface RouteDef<B extends ZodType, Q extends ZodType, P extends ZodTyp
   /** For routes whose success is not JSON (files). */
   produces?: string;
   middleware?: RequestHandler[];
+  /** Checked before `middleware` runs, so nobody without it gets an upload buffered. */
+  ability?: Ability;
 }
 
 export interface RouteContext<B, Q, P> {
@@ -55,7 +58,12 @@ export class Api {
       const result = await handler({ actor: actor as Actor, body, query, params, req, res } as never);
       if (!res.headersSent) res.status(def.status ?? 200).json(result);
     };
-    this.router[def.method](def.path, ...(def.middleware ?? []), run);
+    const gate: RequestHandler = (req, _res, next) => {
+      if (!def.public && !req.actor) throw new UnauthenticatedError();
+      if (def.ability) authorize(req.actor!, def.ability);
+      next();
+    };
+    this.router[def.method](def.path, gate, ...(def.middleware ?? []), run);
   }
 
   private register(def: RouteDef<ZodType, ZodType, ZodType>) {

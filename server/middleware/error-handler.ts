@@ -26,6 +26,9 @@ function toAppError(err: unknown): AppError | null {
   if (e?.type === 'encoding.unsupported' || e?.type === 'charset.unsupported')
     return new AppError(415, 'unsupported_encoding', 'Send the body as UTF-8 JSON.');
   if (e?.status && e.status >= 400 && e.status < 500) return new AppError(e.status, 'bad_request', 'The request could not be read.');
+  const name = (err as Error)?.name ?? '';
+  if (name === 'MeilisearchRequestError' || name === 'MeilisearchRequestTimeOutError' || name === 'MeilisearchTaskTimeOutError')
+    return new AppError(503, 'search_unavailable', 'Search is not reachable right now. Try again in a moment.');
   const pgCode = e?.cause?.code ?? e?.code;
   if (pgCode === 'ECONNREFUSED' || pgCode === '57P01' || pgCode === '57P03' || pgCode === '08006')
     return new AppError(503, 'database_unavailable', 'The database is not reachable right now. Try again in a moment.');

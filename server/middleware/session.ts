@@ -12,7 +12,7 @@ export const SESSION_CACHE_MS = 3_000;
 const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?better-auth\.session_token=([^;]+)/;
 
 export function createSessionCache(): TtlCache<Actor | null> {
-  return createTtlCache<Actor | null>(SESSION_CACHE_MS);
+  return createTtlCache<Actor | null>(SESSION_CACHE_MS, { keep: (actor) => actor !== null });
 }
 
 /**

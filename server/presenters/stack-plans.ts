@@ -1,5 +1,5 @@
 import type { RangeDetail, SavedPlan } from '@shared/contracts/stack-plans.ts';
-import type { PlannerService } from '../services/planner.ts';
+import { inverterFrom, type PlannerService } from '../services/planner.ts';
 
 type SavedRow = Awaited<ReturnType<PlannerService['findPlan']>>;
 
@@ -44,10 +44,7 @@ export function presentRangeDetail(d: Awaited<ReturnType<PlannerService['rangeDe
     planner: {
       range: d.planner as unknown as Record<string, unknown>,
       parts: d.parts,
-      inverters: d.inverters.map((p) => {
-        const a = p.attributes as Record<string, number | undefined>;
-        return { sku: p.sku, name: p.name, batteryMinV: a.batteryMinV ?? 0, batteryMaxV: a.batteryMaxV ?? 0, batteryInputs: a.batteryInputs ?? 1, maxBatteryKwh: a.maxBatteryKwh ?? null };
-      }),
+      inverters: d.inverters.map(inverterFrom),
     },
     abilities: { edit: d.canEdit },
   };

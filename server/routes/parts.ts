@@ -1,9 +1,8 @@
 import { z } from 'zod';
 import multer from 'multer';
-import Papa from 'papaparse';
 import { MakerSchema, MediaSchema, PartDetailSchema, PartInputSchema, PartListQuerySchema, PartListResponseSchema, RangeSummarySchema } from '@shared/contracts/parts.ts';
 import { CATEGORY_LABELS } from '@shared/contracts/part-attributes.ts';
-import { neutraliseRow } from '@shared/domain/csv-safety.ts';
+import { sendCsv } from '../http/csv.ts';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../app.ts';
 import { presentMedia, presentPartDetail, presentPartSummary } from '../presenters/parts.ts';
@@ -32,25 +31,22 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
 
   api.route({ method: 'get', path: '/parts/export.csv', summary: 'The filtered catalogue as CSV', tag: 'catalogue', query: PartListQuerySchema, produces: 'text/csv' }, async ({ actor, query, res }) => {
     const rows = await catalogue.exportRows(actor, query);
-    const csv = Papa.unparse(
-      rows.map((d) =>
-        neutraliseRow({
-          SKU: d.sku,
-          Name: d.name,
-          Category: CATEGORY_LABELS[d.category],
-          Maker: d.makerName,
-          GTIN: d.gtin ?? '',
-          Lifecycle: d.lifecycle,
-          Ranges: d.ranges.join(' '),
-          'Pack size': d.packSize,
-          Available: d.available,
-          'List price (AUD)': d.listPriceCents === null ? '' : (d.listPriceCents / 100).toFixed(2),
-        }),
-      ),
+    sendCsv(
+      res,
+      rows.map((d) => ({
+        SKU: d.sku,
+        Name: d.name,
+        Category: CATEGORY_LABELS[d.category],
+        Maker: d.makerName,
+        GTIN: d.gtin ?? '',
+        Lifecycle: d.lifecycle,
+        Ranges: d.ranges.join(' '),
+        'Pack size': d.packSize,
+        Available: d.available,
+        'List price (AUD)': d.listPriceCents === null ? '' : (d.listPriceCents / 100).toFixed(2),
+      })),
+      'stackyard-catalogue',
     );
-    res.setHeader('content-type', 'text/csv; charset=utf-8');
-    res.setHeader('content-disposition', 'attachment; filename="stackyard-catalogue.csv"');
-    res.send(`\uFEFF${csv}\r\n`);
   });
 
   api.route({ method: 'get', path: '/parts/lookup', summary: 'Find a part by scanned SKU, GTIN or supplier SKU', tag: 'catalogue', query: z.object({ code: z.string().trim().min(1).max(64) }), response: z.object({ data: z.object({ sku: z.string() }) }) }, async ({ actor, query }) => {
@@ -79,7 +75,7 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
     });
   }
 
-  api.route({ method: 'post', path: '/parts/:sku/media', summary: 'Upload a photo (JPEG/PNG/WebP ≤ 5 MB) or datasheet (PDF ≤ 20 MB)', tag: 'catalogue', params: SkuParams, response: z.object({ data: MediaSchema }), status: 201, middleware: [uploadOne] }, async ({ actor, params, req }) => {
+  api.route({ method: 'post', path: '/parts/:sku/media', summary: 'Upload a photo (JPEG/PNG/WebP ≤ 5 MB) or datasheet (PDF ≤ 20 MB)', tag: 'catalogue', params: SkuParams, response: z.object({ data: MediaSchema }), status: 201, ability: 'catalogue.edit', middleware: [uploadOne] }, async ({ actor, params, req }) => {
     const row = await media.upload(actor, params.sku, req.file);
     await catalogue.reindex(row.partId);
     return { data: presentMedia(row) };

@@ -1,8 +1,7 @@
 import { z } from 'zod';
-import Papa from 'papaparse';
 import { InverterOptionSchema, RangeDetailSchema, RangeInputSchema, SavedPlanSchema, SavePlanSchema, StackPlanRequestSchema, StackPlanSchema, type StackPlanResult } from '@shared/contracts/stack-plans.ts';
 import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
-import { neutraliseRow } from '@shared/domain/csv-safety.ts';
+import { sendCsv } from '../http/csv.ts';
 import type { Response } from 'express';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../app.ts';
@@ -12,24 +11,21 @@ import { presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.
 const IdParams = z.object({ id: z.string().min(1).max(64) });
 
 function sendBomCsv(res: Response, plan: StackPlanResult, fileName: string) {
-  const csv = Papa.unparse(
-    plan.bom.map((l) =>
-      neutraliseRow({
-        SKU: l.sku,
-        Part: l.name,
-        Category: CATEGORY_LABELS[l.category as CategoryCode] ?? l.category,
-        'Qty (units)': l.qtyUnits,
-        'Pack size': l.packSize,
-        Packs: l.packs,
-        Available: l.available,
-        Short: l.short,
-        Why: l.reason,
-      }),
-    ),
+  sendCsv(
+    res,
+    plan.bom.map((l) => ({
+      SKU: l.sku,
+      Part: l.name,
+      Category: CATEGORY_LABELS[l.category as CategoryCode] ?? l.category,
+      'Qty (units)': l.qtyUnits,
+      'Pack size': l.packSize,
+      Packs: l.packs,
+      Available: l.available,
+      Short: l.short,
+      Why: l.reason,
+    })),
+    fileName,
   );
-  res.setHeader('content-type', 'text/csv; charset=utf-8');
-  res.setHeader('content-disposition', `attachment; filename="${fileName}.csv"`);
-  res.send(`\uFEFF${csv}\r\n`);
 }
 
 async function sendPlanPdf(res: Response, plan: StackPlanResult, title: string, fileName: string, preparedFor?: string) {
@@ -65,15 +61,13 @@ export function stackPlanRoutes(api: Api, { planner }: AppDeps) {
   }));
 
   api.route({ method: 'get', path: '/stack-plans/saved/:id', summary: 'One saved plan, recomputed with today’s availability', tag: 'planner', params: IdParams, response: z.object({ data: SavedPlanSchema.extend({ plan: StackPlanSchema }) }) }, async ({ actor, params }) => {
-    const saved = await planner.findPlan(actor, params.id);
-    const plan = await planner.plan(actor, StackPlanRequestSchema.parse(saved.request));
+    const { saved, plan } = await planner.replanSaved(actor, params.id);
     return { data: { ...presentSavedPlan(saved), plan } };
   });
 
   for (const format of ['bom.csv', 'plan.pdf'] as const) {
     api.route({ method: 'get', path: `/stack-plans/saved/:id/${format}`, summary: format === 'bom.csv' ? 'A saved plan’s BOM as CSV' : 'A saved plan as PDF', tag: 'planner', params: IdParams, produces: format === 'bom.csv' ? 'text/csv' : 'application/pdf' }, async ({ actor, params, res }) => {
-      const saved = await planner.findPlan(actor, params.id);
-      const plan = await planner.plan(actor, StackPlanRequestSchema.parse(saved.request));
+      const { saved, plan } = await planner.replanSaved(actor, params.id);
       if (format === 'bom.csv') sendBomCsv(res, plan, `bom-${fileStem(saved.name)}`);
       else await sendPlanPdf(res, plan, saved.name, `plan-${fileStem(saved.name)}`, saved.companyName);
     });

@@ -181,7 +181,7 @@ export function createPartsIndex(search: SearchClient) {
 export type PartsIndex = ReturnType<typeof createPartsIndex>;
 
 /** Range codes each part belongs to: as the range's controller, module, compatible inverter or BOM rule part. */
-async function rangeMembership(db: DbOrTx, partIds?: string[]) {
+export async function rangeMembership(db: DbOrTx, partIds?: string[]) {
   const all = await db.select({ code: ranges.code, controllerId: ranges.controllerId, moduleId: ranges.moduleId, rules: ranges.rules }).from(ranges);
   const skuRows = await db.select({ id: parts.id, sku: parts.sku }).from(parts).where(partIds ? inArray(parts.id, partIds) : undefined);
   const bySku = new Map(skuRows.map((r) => [r.sku, r.id]));

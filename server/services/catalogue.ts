@@ -1,7 +1,7 @@
 import { and, asc, count, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
 import { makers, partMedia, parts, partSupplierSkus, ranges, stockLevels, suppliers, warehouses } from '../db/schema/index.ts';
-import type { PartsIndex, PartDocument } from '../search/parts-index.ts';
+import { rangeMembership, type PartsIndex, type PartDocument } from '../search/parts-index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { can } from '@shared/roles.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
@@ -27,17 +27,20 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     return p;
   }
 
-  /** A scanned or typed code: exact SKU, GTIN (any length, compared as GTIN-14) or supplier SKU. */
-  async function exactMatch(code: string): Promise<string | null> {
+  /**
+   * A scanned or typed code: exact SKU, GTIN (any length, compared as GTIN-14) or, for roles that
+   * may see supplier data, a supplier SKU.
+   */
+  async function exactMatch(actor: Actor, code: string): Promise<string | null> {
     const c = code.trim().toUpperCase();
-    // Codes (SKUs, GTINs, supplier SKUs) carry a digit or a separator; plain words skip the look-up.
-    if (c.length < 2 || c.length > 64 || /\s/.test(c) || !/[\d./-]/.test(c)) return null;
+    if (c.length < 2 || c.length > 64 || /\s/.test(c)) return null;
+    const suppliersToo = can(actor.role, 'suppliers.view');
     const gtin14 = /^\d{8,14}$/.test(c) ? normalizeGtin14(c) : null;
     // Three indexed look-ups; the first that answers wins.
     const { rows } = await db.execute<{ sku: string }>(sql`
       (select sku from parts where sku = ${c})
       union all (select sku from parts where ${gtin14 ?? null}::text is not null and gtin14 = ${gtin14 ?? null}::text)
-      union all (select p.sku from part_supplier_skus s join parts p on p.id = s.part_id where upper(s.supplier_sku) = ${c})
+      union all (select p.sku from part_supplier_skus s join parts p on p.id = s.part_id where ${suppliersToo} and upper(s.supplier_sku) = ${c})
       limit 1`);
     return rows[0]?.sku ?? null;
   }
@@ -61,6 +64,15 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     });
     if (fields.length) throw new ValidationError('Some references do not exist.', { fields });
     return { makerId: maker!.id, supersededById, supplierIds };
+  }
+
+  /** Range rules name parts by SKU, so a SKU they use cannot change under them. */
+  async function refuseRenameInUse(tx: Tx, sku: string) {
+    const using = await tx.select({ name: ranges.name }).from(ranges).where(sql`${ranges.rules} @> ${JSON.stringify([{ sku }])}::jsonb`);
+    if (using.length)
+      throw new ConflictError(`The SKU ${sku} is used by the BOM rules of ${using.map((r) => r.name).join(', ')}: change those rules first.`, {
+        fields: [{ path: 'sku', message: 'Used by range rules; cannot be renamed.' }],
+      });
   }
 
   function columnsFrom(input: PartInputParsed, refs: { makerId: string; supersededById: string | null }) {
@@ -96,6 +108,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     authorize(actor, 'catalogue.edit');
     try {
       return await db.transaction(async (tx) => {
+        if (existing && existing.sku !== input.sku) await refuseRenameInUse(tx, existing.sku);
         const refs = await resolveRefs(tx, input);
         const values = columnsFrom(input, refs);
         const [row] = existing
@@ -118,7 +131,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
 
     async lookup(actor: Actor, code: string) {
       authorize(actor, 'catalogue.view');
-      const sku = await exactMatch(code);
+      const sku = await exactMatch(actor, code);
       if (!sku) throw new NotFoundError(`A part with the code ${code}`);
       return { sku };
     },
@@ -151,7 +164,8 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
           offset: (query.page - 1) * query.pageSize,
           attributesToRetrieve: [...SUMMARY_FIELDS],
         }),
-        exactMatch(query.q),
+        // While typing, plain words (no digit or separator) cannot be a code: skip the look-up.
+        /[\d./-]/.test(query.q) ? exactMatch(actor, query.q) : Promise.resolve(null),
         ...active.map((f) => partsIndex.index.search(query.q, { filter: filterWithout(f), facets: [f], limit: 0 })),
       ]);
       const dist = { ...(result.facetDistribution ?? {}) };
@@ -184,7 +198,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     async detail(actor: Actor, sku: string) {
       authorize(actor, 'catalogue.view');
       const p = await findPart(sku);
-      const [[maker], successor, predecessors, media, stock, supplierRows, [doc]] = await Promise.all([
+      const [[maker], successor, predecessors, media, stock, supplierRows, membership] = await Promise.all([
         db.select().from(makers).where(eq(makers.id, p.makerId)),
         p.supersededById ? db.select({ sku: parts.sku, name: parts.name }).from(parts).where(eq(parts.id, p.supersededById)) : Promise.resolve([]),
         db.select({ sku: parts.sku, name: parts.name }).from(parts).where(eq(parts.supersededById, p.id)).orderBy(asc(parts.sku)),
@@ -203,9 +217,9 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
         can(actor.role, 'suppliers.view')
           ? db.select({ supplier: suppliers.code, sku: partSupplierSkus.supplierSku }).from(partSupplierSkus).innerJoin(suppliers, eq(suppliers.id, partSupplierSkus.supplierId)).where(eq(partSupplierSkus.partId, p.id))
           : Promise.resolve(null),
-        partsIndex.index.search('', { filter: `sku = ${quote(p.sku)}`, limit: 1 }).then((r) => r.hits as PartDocument[]),
+        rangeMembership(db, [p.id]),
       ]);
-      return { part: p, maker: maker!, successor: successor[0] ?? null, predecessors, media, stock, supplierSkus: supplierRows, ranges: doc?.ranges ?? [] };
+      return { part: p, maker: maker!, successor: successor[0] ?? null, predecessors, media, stock, supplierSkus: supplierRows, ranges: membership.get(p.id) ?? [] };
     },
 
     create: (actor: Actor, input: PartInputParsed) => save(actor, input, null),
@@ -222,7 +236,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
         const [row] = await tx.update(parts).set({ archivedAt: archived ? new Date() : null, updatedAt: new Date() }).where(eq(parts.id, p.id)).returning();
         await partsIndex.sync(tx, [p.id]);
         return row!;
-      });
+      }).finally(onPartsChanged);
     },
 
     async makers(actor: Actor) {

@@ -38,7 +38,7 @@ async function classify(file: Upload) {
 
 export function createMediaService({ db, files }: { db: Db; files: FileStore }) {
   async function partId(sku: string) {
-    const [p] = await db.select({ id: parts.id }).from(parts).where(eq(parts.sku, sku));
+    const [p] = await db.select({ id: parts.id }).from(parts).where(eq(parts.sku, sku.toUpperCase()));
     if (!p) throw new NotFoundError('That part');
     return p.id;
   }
@@ -52,7 +52,7 @@ export function createMediaService({ db, files }: { db: Db; files: FileStore }) 
       let thumbnail: Buffer | null = null;
       if (what.kind === 'image') {
         try {
-          thumbnail = await sharp(file.buffer).rotate().resize(320, 320, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
+          thumbnail = await sharp(file.buffer, { limitInputPixels: 40_000_000 }).rotate().resize(320, 320, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
         } catch {
           throw new ValidationError('That image could not be read: it may be damaged. Try exporting it again.');
         }

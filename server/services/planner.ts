@@ -3,11 +3,11 @@ import type { Db } from '../db/client.ts';
 import { companies, makers, parts, rangeInverters, ranges, stackPlans, stockLevels, user, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { can } from '@shared/roles.ts';
-import { NotFoundError, ValidationError } from '../errors.ts';
+import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
 import { createTtlCache, type TtlCache } from '../lib/ttl-cache.ts';
 import { planStack, type PlannerInverter, type PlannerPart, type PlannerRange, type PlannerUnit } from '@shared/domain/planner.ts';
 import { BomRulesSchema, unknownRuleSkus } from '@shared/domain/bom-rules.ts';
-import type { RangeInput, SavePlanInput, StackPlanRequest } from '@shared/contracts/stack-plans.ts';
+import { StackPlanRequestSchema, type RangeInput, type SavePlanInput, type StackPlanRequest } from '@shared/contracts/stack-plans.ts';
 
 type PartRow = typeof parts.$inferSelect;
 const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -37,7 +37,7 @@ function unitFrom(p: PartRow): PlannerUnit {
   };
 }
 
-function inverterFrom(p: PartRow): PlannerInverter {
+export function inverterFrom(p: PartRow): PlannerInverter {
   const a = p.attributes as Record<string, number | undefined>;
   return { sku: p.sku, name: p.name, batteryMinV: a.batteryMinV ?? 0, batteryMaxV: a.batteryMaxV ?? 0, batteryInputs: a.batteryInputs ?? 1, maxBatteryKwh: a.maxBatteryKwh ?? null };
 }
@@ -209,6 +209,19 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
     async customers(actor: Actor) {
       authorize(actor, 'customers.view');
       return db.select({ id: companies.id, name: companies.name }).from(companies).where(eq(companies.kind, 'installer')).orderBy(asc(companies.name));
+    },
+
+    /** A saved plan recomputed with today's range and stock; a plan its range no longer allows says why. */
+    async replanSaved(actor: Actor, id: string) {
+      const saved = await this.findPlan(actor, id);
+      const request = StackPlanRequestSchema.safeParse(saved.request);
+      if (!request.success) throw new ConflictError('This saved plan can no longer be read. Plan it again from the planner.');
+      try {
+        return { saved, plan: await plan(actor, request.data) };
+      } catch (e) {
+        if (e instanceof ValidationError) throw new ConflictError(`Its range has changed since this plan was saved: ${e.message} Open it in the planner to adjust it.`);
+        throw e;
+      }
     },
 
     async rangeDetail(actor: Actor, idOrCode: string) {

@@ -262,6 +262,79 @@ describe('media uploads', () => {
   });
 });
 
+describe('media routes', () => {
+  it('answer 401 without a session and 404 for unknown files', async () => {
+    const anon = request(t.app);
+    await anon.get('/api/media/00000000-0000-0000-0000-000000000000').expect(401);
+    await anon.delete(`/api/parts/${demoParts[0]!.sku}/media/00000000-0000-0000-0000-000000000000`).expect(401);
+    await anon.post(`/api/parts/${demoParts[0]!.sku}/media`).attach('file', Buffer.from('x'), 'x.png').expect(401);
+    const agent = await t.signIn('purchasing');
+    await agent.get('/api/media/00000000-0000-0000-0000-000000000000').expect(404);
+    await agent.get('/api/media/not-a-uuid').expect(400);
+    await agent.delete(`/api/parts/${demoParts[0]!.sku}/media/00000000-0000-0000-0000-000000000000`).expect(404);
+  });
+
+  it('let purchasing remove a photo, and refuse that to sales', async () => {
+    const agent = await t.signIn('purchasing');
+    const sku = demoParts.find((p) => p.category === 'end-cap')!.sku;
+    const png = await sharp({ create: { width: 40, height: 40, channels: 3, background: '#0e6b63' } }).png().toBuffer();
+    const up = await agent.post(`/api/parts/${sku.toLowerCase()}/media`).attach('file', png, 'cap.png').expect(201);
+    const sales = await t.signIn('sales');
+    await sales.delete(`/api/parts/${sku}/media/${up.body.data.id}`).expect(403);
+    await agent.delete(`/api/parts/${sku}/media/${up.body.data.id}`).expect(204);
+    await agent.get(up.body.data.url).expect(404);
+  });
+
+  it('refuse a datasheet over 20 MB', async () => {
+    const agent = await t.signIn('purchasing');
+    const big = Buffer.concat([Buffer.from('%PDF-1.4\n'), Buffer.alloc(21 * 1024 * 1024, 32)]);
+    const res = await agent.post(`/api/parts/${demoParts[0]!.sku}/media`).attach('file', big, 'huge.pdf');
+    expect(res.status).toBe(413);
+  });
+});
+
+describe('identity rules', () => {
+  it('refuses the same item as GTIN-14 on a second part (unique as GTIN-14)', async () => {
+    const agent = await t.signIn('purchasing');
+    const taken = demoParts.find((p) => p.gtin)!;
+    const res = await agent.post('/api/parts').send(newPart({ gtin: `0${taken.gtin}` }));
+    expect(res.status).toBe(409);
+    expect(res.body.error.details.fields[0].path).toBe('gtin');
+  });
+
+  it('refuses to rename a SKU that range rules use', async () => {
+    const agent = await t.signIn('purchasing');
+    const feet = (await agent.get('/api/parts/HLM-TOR-FEET').expect(200)).body.data;
+    const input = { sku: 'HLM-TOR-FEET-2', name: feet.name, makerCode: 'HLM', packSize: feet.packSize, massKg: feet.massKg, attributes: feet.attributes };
+    const res = await agent.patch('/api/parts/HLM-TOR-FEET').send(input);
+    expect(res.status).toBe(409);
+    expect(res.body.error.details.fields[0].path).toBe('sku');
+  });
+
+  it('does not reveal supplier SKUs to installers through the scan jump', async () => {
+    const installer = await t.signIn('installer');
+    const res = await installer.get('/api/parts').query({ q: withKestrelSku.supplierSkus![0]!.sku }).expect(200);
+    expect(res.body.exactSku).toBeNull();
+  });
+});
+
+describe('when search is down', () => {
+  it('answers 503 with a clear message, and health says so', async () => {
+    const down = await createTestApp();
+    try {
+      const agent = await down.signIn('sales');
+      await down.stopSearch();
+      const res = await agent.get('/api/parts').query({ q: 'cable' });
+      expect(res.status).toBe(503);
+      expect(res.body.error.code).toBe('search_unavailable');
+      const health = await request(down.app).get('/api/health').expect(200);
+      expect(health.body).toMatchObject({ status: 'degraded', db: 'up', search: 'down' });
+    } finally {
+      await down.close();
+    }
+  });
+});
+
 describe('CSV export', () => {
   it('neutralises formula injection in text cells and leaves numbers alone', async () => {
     const agent = await t.signIn('purchasing');

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../support/app.ts';
 import { seedCatalogue } from '../../seed/catalogue.ts';
 import { ranges } from '../../server/db/schema/index.ts';
@@ -33,10 +33,14 @@ describe('POST /api/stack-plans', () => {
     expect(p.dvc).toBe('A'); // ≤ 60 V DC is DVC-A (AS/NZS 5139:2019, classes from IEC 62109-1)
     expect(p.bom.some((l: { category: string }) => l.category === 'cable-cover')).toBe(false);
     expect(p.bom.find((l: { category: string }) => l.category === 'module').qtyUnits).toBe(3);
-    for (const line of p.bom) {
-      expect(typeof line.available).toBe('number');
-      expect(line.reason.length).toBeGreaterThan(5);
-    }
+    // availability is the seeded on hand − reserved summed over both warehouses
+    const moduleLine = p.bom.find((l: { category: string }) => l.category === 'module');
+    const [{ sum }] = (await t.db.execute(sql`select coalesce(sum(on_hand - reserved), 0)::int as sum from stock_levels s join parts p on p.id = s.part_id where p.sku = ${moduleLine.sku}`)).rows as { sum: number }[];
+    expect(moduleLine.available).toBe(sum);
+    expect(moduleLine.short).toBe(Math.max(0, 3 - sum));
+    expect(moduleLine.reason).toBe('3 modules per stack');
+    const feet = p.bom.find((l: { category: string }) => l.category === 'feet');
+    expect(feet.packs * feet.packSize).toBe(feet.qtyUnits); // whole packs only (common practice)
     expect(p.cautions.map((c: { code: string }) => c.code)).toEqual(expect.arrayContaining(['licensed_work']));
   });
 
@@ -131,6 +135,26 @@ describe('saved plans', () => {
     expect(saved.body.data.companyName).toBe('Banksia Bay Electrical');
     const bad = await sales.post('/api/stack-plans/saved').send({ name: 'x', request: { rangeId: 'TVP-SL48', modules: 4 } });
     expect(bad.status).toBe(400);
+  });
+});
+
+describe('authentication on every planner route', () => {
+  it('answers 401 without a session', async () => {
+    const anon = request(t.app);
+    await anon.get('/api/inverters').expect(401);
+    await anon.get('/api/ranges/QRB-HEARTH').expect(401);
+    await anon.get('/api/stack-plans/saved').expect(401);
+    await anon.get('/api/stack-plans/saved/00000000-0000-0000-0000-000000000000/bom.csv').expect(401);
+    await anon.get('/api/stack-plans/saved/00000000-0000-0000-0000-000000000000/plan.pdf').expect(401);
+    await anon.post('/api/stack-plans/bom.csv').send({ rangeId: 'QRB-HEARTH', modules: 2 }).expect(401);
+    await anon.put('/api/ranges/QRB-HEARTH').send({}).expect(401);
+  });
+
+  it('lists inverters with their battery windows for any signed-in role', async () => {
+    const agent = await t.signIn('installer');
+    const res = await agent.get('/api/inverters').expect(200);
+    const lv = res.body.data.find((i: { sku: string }) => i.sku === 'QRB-INV-5LV');
+    expect(lv.batteryMaxV).toBeGreaterThan(lv.batteryMinV);
   });
 });
 

@@ -27,6 +27,8 @@ export interface TestApp {
   services: AppDeps;
   filesDir: string;
   /** A supertest agent signed in as a new user of that role (installers get a new company unless given one). */
+  /** Stops this app's search stand-in, to see how the app copes. */
+  stopSearch(): Promise<void>;
   signIn(role: Role, options?: { companyId?: string; email?: string }): Promise<supertest.Agent & { userId: string; companyId: string | null }>;
   close(): Promise<void>;
 }
@@ -38,6 +40,7 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
   const trustedOrigins = [baseURL];
   const auth = createAuth({ db, baseURL, secret: 'test-secret-test-secret-test-secret-0123', trustedOrigins, signInLimitPerMinute: options.signInLimitPerMinute ?? 1000 });
   const search = createSearchClient({ host: standin.url });
+  let searchStopped = false;
   const filesDir = mkdtempSync(path.join(os.tmpdir(), 'stackyard-files-'));
   const appOptions = {
     db,
@@ -67,8 +70,12 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
       if (res.status !== 200) throw new Error(`test sign-in failed: ${res.status} ${res.text}`);
       return Object.assign(agent, { userId: u.id, companyId: u.companyId });
     },
+    async stopSearch() {
+      if (!searchStopped) await standin.close();
+      searchStopped = true;
+    },
     async close() {
-      await standin.close();
+      if (!searchStopped) await standin.close();
       await drop();
     },
   };

@@ -28,7 +28,7 @@ export const parts = pgTable(
       .notNull()
       .references(() => makers.id),
     description: text().notNull().default(''),
-    gtin: text().unique(),
+    gtin: text(),
     /** The GTIN as 14 digits, so a scanned GTIN-13 or GTIN-14 finds the part through one index. */
     gtin14: text().generatedAlwaysAs(sql`lpad(gtin, 14, '0')`),
     unit: text().notNull().default('each'),
@@ -55,7 +55,8 @@ export const parts = pgTable(
   (t) => [
     index().on(t.category),
     index().on(t.makerId),
-    index('parts_gtin14_idx').on(t.gtin14),
+    // Unique as GTIN-14, so one item cannot sit on two parts as GTIN-13 and GTIN-14.
+    uniqueIndex('parts_gtin14_unique').on(t.gtin14),
     check('parts_category_known', sql`${t.category} in (${categoryList})`),
     // The typed attributes (validated by the shared zod union) must describe the same category.
     check('parts_attributes_category', sql`${t.attributes}->>'category' = ${t.category}`),
