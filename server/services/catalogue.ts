@@ -19,6 +19,24 @@ const quote = (v: string) => `"${v.replace(/["\\]/g, '\\$&')}"`;
 
 export type PartRow = typeof parts.$inferSelect;
 
+function chosenFacets(query: PartListQuery): [Facet, string | undefined][] {
+  return [
+    ['category', query.category],
+    ['maker', query.maker],
+    ['ranges', query.range],
+    ['lifecycle', query.lifecycle],
+    ['inStock', query.inStock],
+  ];
+}
+
+/** The engine filter for the chosen facets, optionally leaving one out (for its own counts). */
+function filterFor(chosen: [Facet, string | undefined][], skip?: Facet) {
+  const parts = chosen.filter(([f, v]) => v !== undefined && f !== skip).map(([f, v]) => (f === 'inStock' ? `inStock = ${v}` : `${f} = ${quote(v!)}`));
+  return ['archived = false', ...parts].join(' AND ');
+}
+
+const sortFor = (query: PartListQuery) => (query.sort !== 'relevance' ? [`${SORTS[query.sort]}:${query.dir}`] : query.q ? undefined : ['sku:asc']);
+
 /** `onPartsChanged` lets caches built from part data (the planner's ranges) drop what they hold. */
 export function createCatalogueService({ db, partsIndex, onPartsChanged = () => {} }: { db: Db; partsIndex: PartsIndex; onPartsChanged?: () => void }) {
   async function findPart(sku: string) {
@@ -143,16 +161,9 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
 
     async list(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
-      const chosen: [Facet, string | undefined][] = [
-        ['category', query.category],
-        ['maker', query.maker],
-        ['ranges', query.range],
-        ['lifecycle', query.lifecycle],
-        ['inStock', query.inStock],
-      ];
-      const filterWithout = (skip?: Facet) =>
-        ['archived = false', ...chosen.filter(([f, v]) => v !== undefined && f !== skip).map(([f, v]) => (f === 'inStock' ? `inStock = ${v}` : `${f} = ${quote(v!)}`))].join(' AND ');
-      const sort = query.sort !== 'relevance' ? [`${SORTS[query.sort]}:${query.dir}`] : query.q ? undefined : ['sku:asc'];
+      const chosen = chosenFacets(query);
+      const filterWithout = (skip?: Facet) => filterFor(chosen, skip);
+      const sort = sortFor(query);
       // A chosen facet still shows the counts of its other values: those come from a search without its own filter.
       const active = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
       const [result, exactSku, ...others] = await Promise.all([
@@ -184,13 +195,15 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
       };
     },
 
-    /** Every matching part (capped) for the CSV export. */
+    /** Every matching part (up to the index's hit cap) for the CSV export: hits only, no facets. */
     async exportRows(actor: Actor, query: PartListQuery) {
+      authorize(actor, 'catalogue.view');
       const rows: PartDocument[] = [];
-      for (let page = 1; page <= 50; page++) {
-        const { hits, total } = await this.list(actor, { ...query, page, pageSize: 200 });
-        rows.push(...hits);
-        if (rows.length >= total || hits.length === 0) break;
+      const filter = filterFor(chosenFacets(query));
+      for (let offset = 0; offset < 20_000; offset += 1000) {
+        const { hits } = await partsIndex.index.search(query.q, { filter, sort: sortFor(query), limit: 1000, offset, attributesToRetrieve: [...SUMMARY_FIELDS] });
+        rows.push(...(hits as PartDocument[]));
+        if (hits.length < 1000) break;
       }
       return rows;
     },

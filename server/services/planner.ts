@@ -37,7 +37,7 @@ function unitFrom(p: PartRow): PlannerUnit {
   };
 }
 
-export function inverterFrom(p: PartRow): PlannerInverter {
+export function inverterFrom(p: PartRow): PlannerInverter & { maxBatteryKwh: number | null } {
   const a = p.attributes as Record<string, number | undefined>;
   return { sku: p.sku, name: p.name, batteryMinV: a.batteryMinV ?? 0, batteryMaxV: a.batteryMaxV ?? 0, batteryInputs: a.batteryInputs ?? 1, maxBatteryKwh: a.maxBatteryKwh ?? null };
 }

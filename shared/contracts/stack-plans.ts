@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { BomRulesSchema } from '../domain/bom-rules.ts';
 import { CategoryCodeSchema } from './part-attributes.ts';
+import { RangeSummarySchema } from './parts.ts';
 
 export const StackPlanRequestSchema = z
   .strictObject({
@@ -116,32 +117,6 @@ export const RangeInputSchema = z
   .refine((r) => r.maxModules >= r.minModules, { path: ['maxModules'], message: 'The maximum must be at least the minimum.' });
 export type RangeInput = z.input<typeof RangeInputSchema>;
 
-/** Everything the client needs to run the shared planner itself (the range editor's live preview). */
-export const RangeDetailSchema = z.object({
-  id: z.string(),
-  code: z.string(),
-  name: z.string(),
-  maker: z.string(),
-  makerName: z.string(),
-  connection: z.enum(['series', 'parallel']),
-  minModules: z.number(),
-  maxModules: z.number(),
-  maxStacks: z.number(),
-  baseHeightMm: z.number(),
-  defaultDodPct: z.number().nullable(),
-  controllerSku: z.string(),
-  moduleSku: z.string(),
-  inverterSkus: z.array(z.string()),
-  rules: BomRulesSchema,
-  planner: z.object({
-    range: z.record(z.string(), z.unknown()),
-    parts: z.record(z.string(), z.object({ sku: z.string(), name: z.string(), category: CategoryCodeSchema.or(z.string()), packSize: z.number(), massKg: z.number().nullable().optional() })),
-    inverters: z.array(z.object({ sku: z.string(), name: z.string(), batteryMinV: z.number(), batteryMaxV: z.number(), batteryInputs: z.number(), maxBatteryKwh: z.number().nullable().optional() })),
-  }),
-  abilities: z.object({ edit: z.boolean() }),
-});
-export type RangeDetail = z.infer<typeof RangeDetailSchema>;
-
 export const InverterOptionSchema = z.object({
   sku: z.string(),
   name: z.string(),
@@ -152,3 +127,18 @@ export const InverterOptionSchema = z.object({
   maxBatteryKwh: z.number().nullable(),
   lifecycle: z.string(),
 });
+
+/** Everything the client needs to run the shared planner itself (the range editor's live preview). */
+export const RangeDetailSchema = RangeSummarySchema.extend({
+  baseHeightMm: z.number(),
+  defaultDodPct: z.number().nullable(),
+  inverterSkus: z.array(z.string()),
+  rules: BomRulesSchema,
+  planner: z.object({
+    range: z.record(z.string(), z.unknown()),
+    parts: z.record(z.string(), z.object({ sku: z.string(), name: z.string(), category: CategoryCodeSchema.or(z.string()), packSize: z.number(), massKg: z.number().nullable().optional() })),
+    inverters: z.array(InverterOptionSchema.omit({ makerName: true, lifecycle: true })),
+  }),
+  abilities: z.object({ edit: z.boolean() }),
+});
+export type RangeDetail = z.infer<typeof RangeDetailSchema>;
