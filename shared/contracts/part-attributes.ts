@@ -101,6 +101,7 @@ const CELL_V_MIN = 1.5;
 const CELL_V_MAX = 4.2;
 
 type CellValues = {
+  chemistry?: string;
   nominalV?: number;
   ratedAh?: number;
   usableKwh?: number;
@@ -110,6 +111,12 @@ type CellValues = {
 };
 
 function checkCellValues(v: CellValues, ctx: z.RefinementCtx): void {
+  // The planner can only infer voltages from the cell count for LFP; other chemistries must state them.
+  if (v.chemistry !== undefined && v.chemistry !== 'LFP') {
+    for (const key of ['minOperatingV', 'maxChargeV'] as const)
+      if (v[key] === undefined)
+        ctx.addIssue({ code: 'custom', path: [key], message: `Give the ${key === 'maxChargeV' ? 'maximum charge' : 'minimum operating'} voltage: it cannot be inferred for ${v.chemistry} cells.` });
+  }
   if (v.minOperatingV !== undefined && v.maxChargeV !== undefined && v.minOperatingV >= v.maxChargeV) {
     ctx.addIssue({
       code: 'custom',
