@@ -119,11 +119,18 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
 
   async function plan(actor: Actor, input: StackPlanRequest) {
     authorize(actor, 'plans.create');
-    const [loaded, inverter] = await Promise.all([loadRange(input.rangeId), input.inverterSku ? findInverter(input.inverterSku) : Promise.resolve(null)]);
+    const loaded = await loadRange(input.rangeId);
+    // Stock is read for every part the range can call for while the plan is worked out,
+    // and a compatible inverter comes from the cached range: one database round trip per plan.
+    const sku = input.inverterSku?.toUpperCase();
+    const listed = sku ? loaded.inverters.find((p) => p.sku === sku) : undefined;
+    const [inverter, stock] = await Promise.all([
+      listed ? inverterFrom(listed) : sku ? findInverter(sku) : null,
+      availability(Object.keys(loaded.parts)),
+    ]);
     const result = planStack({ range: loaded.planner, parts: loaded.parts, modules: input.modules, targetUsableKwh: input.targetUsableKwh, inverter, stacks: input.stacks });
     if (!result.ok) throw new ValidationError(result.error.message, { code: result.error.code, ...result.error.details });
     const p = result.plan;
-    const stock = await availability(p.bom.map((l) => l.sku));
     return {
       ...p,
       rangeId: loaded.row.id,

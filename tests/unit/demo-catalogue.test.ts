@@ -55,7 +55,7 @@ describe('part attribute contract', () => {
     expect(bad({ category: 'module', nominalV: 51.2, ratedAh: 100, chemistry: 'LFP', minOperatingV: 58, maxChargeV: 50 })).toContain('maxChargeV');
     expect(bad({ category: 'module', nominalV: 15_000, ratedAh: 100, chemistry: 'LFP' })).toEqual(['nominalV']);
     // LFP voltages follow from the cell count (3.65 V full, 2.5 V cut-off, common practice); NMC's do not
-    expect(bad({ category: 'module', nominalV: 44.4, ratedAh: 100, chemistry: 'NMC' }).sort()).toEqual(['maxChargeV', 'minOperatingV']);
+    expect([...(bad({ category: 'module', nominalV: 44.4, ratedAh: 100, chemistry: 'NMC' }) ?? [])].sort()).toEqual(['maxChargeV', 'minOperatingV']);
     expect(bad({ category: 'module', nominalV: 51.2, ratedAh: 100, chemistry: 'LFP', eolSohPct: 30 })).toEqual(['eolSohPct']);
     expect(bad({ category: 'controller', carriesCells: true })).toEqual(['nominalV', 'ratedAh']);
     expect(bad({ category: 'controller', carriesCells: false, usableKwh: 2 })).toEqual(['usableKwh']);
