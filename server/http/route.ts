@@ -56,7 +56,8 @@ export class Api {
       const query = parse(def.query, req.query, 'query');
       const params = parse(def.params, req.params, 'path');
       const result = await handler({ actor: actor as Actor, body, query, params, req, res } as never);
-      if (!res.headersSent) res.status(def.status ?? 200).json(result);
+      // A handler may set its own status (health answers 503 when the database is down).
+      if (!res.headersSent) (def.status ? res.status(def.status) : res).json(result);
     };
     const gate: RequestHandler = (req, _res, next) => {
       if (!def.public && !req.actor) throw new UnauthenticatedError();

@@ -29,10 +29,19 @@ function toAppError(err: unknown): AppError | null {
   const name = (err as Error)?.name ?? '';
   if (name === 'MeilisearchRequestError' || name === 'MeilisearchRequestTimeOutError' || name === 'MeilisearchTaskTimeOutError')
     return new AppError(503, 'search_unavailable', 'Search is not reachable right now. Try again in a moment.');
-  const pgCode = e?.cause?.code ?? e?.code;
-  if (pgCode === 'ECONNREFUSED' || pgCode === '57P01' || pgCode === '57P03' || pgCode === '08006')
+  if (databaseDown(err) || (err as { body?: { code?: string } })?.body?.code === 'FAILED_TO_GET_SESSION')
     return new AppError(503, 'database_unavailable', 'The database is not reachable right now. Try again in a moment.');
   return null;
+}
+
+/** Connection refused or reset, or PostgreSQL shutting down or starting, anywhere in the cause chain. */
+function databaseDown(err: unknown) {
+  const codes = new Set(['ECONNREFUSED', 'ECONNRESET', '57P01', '57P02', '57P03', '08000', '08003', '08006']);
+  for (let e = err as { code?: string; cause?: unknown; message?: string } | undefined, depth = 0; e && depth < 5; e = e.cause as typeof e, depth++) {
+    if (e.code && codes.has(e.code)) return true;
+    if (e.message === 'Connection terminated unexpectedly' || e.message?.includes('Connection terminated')) return true;
+  }
+  return false;
 }
 
 export const apiNotFound: RequestHandler = (req, res) => {

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import pg from 'pg';
 import { createTestApp, TEST_ORIGIN, type TestApp } from '../support/app.ts';
 
 let t: TestApp;
@@ -50,6 +51,23 @@ describe('system routes', () => {
     expect(res.body.error.code).toBe('bad_origin');
     const ok = await agent.post('/api/admin/users').set('origin', TEST_ORIGIN).send({});
     expect(ok.status).toBe(400);
+  });
+
+  it('recover when the database drops every connection (as on a restart)', async () => {
+    const agent = await t.signIn('sales');
+    await agent.get('/api/me').expect(200);
+    const name = new URL(t.dbUrl).pathname.slice(1);
+    const admin = new pg.Client({ connectionString: process.env.TEST_PG_URL });
+    await admin.connect();
+    await admin.query('select pg_terminate_backend(pid) from pg_stat_activity where datname = $1', [name]);
+    await admin.end();
+    // The first requests may find dead connections and fail cleanly; then the pool reconnects.
+    const first = await request(t.app).get('/api/health');
+    expect([200, 503]).toContain(first.status);
+    if (first.status === 503) expect(first.body.db).toBe('down');
+    await expect.poll(async () => (await request(t.app).get('/api/health')).status, { timeout: 5000 }).toBe(200);
+    await new Promise((r) => setTimeout(r, 3100)); // past the remembered session
+    await agent.get('/api/me').expect(200);
   });
 
   it('set security headers and a request id', async () => {
