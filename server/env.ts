@@ -14,6 +14,8 @@ const EnvSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CLIENT_DIR: z.string().default('dist/client'),
   TRUST_PROXY: z.string().optional(),
+  /** Worker processes sharing the port (node:cluster); 1 runs a single process. */
+  WEB_CONCURRENCY: z.coerce.number().int().min(1).max(32).default(1),
   DATA_DIR: z.string().default('.data/files'),
 });
 

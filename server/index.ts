@@ -1,3 +1,4 @@
+import cluster from 'node:cluster';
 import { readEnv } from './env.ts';
 import { migrateDb } from './db/client.ts';
 import { buildContext } from './context.ts';
@@ -5,22 +6,58 @@ import { createApp, createServices } from './app.ts';
 
 const env = readEnv();
 const context = buildContext(env);
-await migrateDb(context.db);
-const app = createApp(context);
-// The search engine may have restarted empty (the local stand-in keeps its index in memory).
-const index = await createServices(context).partsIndex.ensure(context.db).catch((e: Error) => {
-  context.logger.error({ err: e }, 'search index not ready: catalogue search will fail until the search server answers');
-  return null;
-});
-if (index?.rebuilt) context.logger.info(`search index rebuilt with ${index.documents} parts`);
 
-const server = app.listen(env.PORT, env.HOST, () => context.logger.info(`Stackyard listening on ${context.trustedOrigins[0]}`));
-// Longer than a load balancer's idle timeout, so the balancer (not us) closes idle connections.
-server.keepAliveTimeout = 65_000;
-server.headersTimeout = 66_000;
-const stop = () => {
-  server.close();
-  void context.db.$client.end();
-};
-process.on('SIGTERM', stop);
-process.on('SIGINT', stop);
+if (cluster.isPrimary) {
+  // Start-up work happens once, before any worker serves.
+  await migrateDb(context.db);
+  // The search engine may have restarted empty (the local stand-in keeps its index in memory).
+  const index = await createServices(context).partsIndex.ensure(context.db).catch((e: Error) => {
+    context.logger.error({ err: e }, 'search index not ready: catalogue search will fail until the search server answers');
+    return null;
+  });
+  if (index?.rebuilt) context.logger.info(`search index rebuilt with ${index.documents} parts`);
+}
+
+if (cluster.isPrimary && env.WEB_CONCURRENCY > 1) {
+  // Several workers share the port; each is a stateless instance like those behind a balancer.
+  await context.db.$client.end();
+  for (let i = 0; i < env.WEB_CONCURRENCY; i++) cluster.fork();
+  let stopping = false;
+  cluster.on('exit', (worker, code, signal) => {
+    if (stopping) {
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+    } else if (code !== 0) {
+      context.logger.error(`worker ${worker.process.pid} stopped (${signal ?? code}); starting another`);
+      cluster.fork();
+    }
+  });
+  const stopAll = () => {
+    stopping = true;
+    for (const w of Object.values(cluster.workers ?? {})) w?.kill('SIGTERM');
+  };
+  process.on('SIGTERM', stopAll);
+  process.on('SIGINT', stopAll);
+} else {
+  serve();
+}
+
+function serve() {
+  const app = createApp(context);
+  const server = app.listen(env.PORT, env.HOST, () => {
+    if (cluster.isPrimary || cluster.worker?.id === 1) context.logger.info(`Stackyard listening on ${context.trustedOrigins[0]}`);
+  });
+  // Longer than a load balancer's idle timeout, so the balancer (not us) closes idle connections.
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
+  let stopped = false;
+  const stop = () => {
+    if (stopped) return;
+    stopped = true;
+    server.close(() => void context.db.$client.end().finally(() => process.exit(0)));
+    // Keep-alive connections would hold close() open; a moment's grace, then go.
+    setTimeout(() => process.exit(0), 2_000).unref();
+    server.closeIdleConnections();
+  };
+  process.on('SIGTERM', stop);
+  process.on('SIGINT', stop);
+}
