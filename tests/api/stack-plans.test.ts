@@ -5,6 +5,7 @@ import { createTestApp, type TestApp } from '../support/app.ts';
 import { seedCatalogue } from '../../seed/catalogue.ts';
 import { ranges } from '../../server/db/schema/index.ts';
 import { makeCompany } from '../../seed/factories.ts';
+import { ranges as demoRanges } from '../../seed/data/catalogue.ts';
 
 let t: TestApp;
 let ids: Record<string, string>;
@@ -108,6 +109,33 @@ describe('POST /api/stack-plans', () => {
     expect(pdf.status).toBe(200);
     expect(pdf.headers['content-type']).toBe('application/pdf');
     expect((pdf.body as Buffer).subarray(0, 5).toString()).toBe('%PDF-');
+  });
+});
+
+describe('every demo range', () => {
+  it('plans every module count from its minimum to its maximum, and refuses one outside', async () => {
+    const agent = await t.signIn('sales');
+    for (const range of demoRanges) {
+      for (let n = range.minModules; n <= range.maxModules; n++) {
+        const res = await agent.post('/api/stack-plans').send({ rangeId: range.code, modules: n });
+        expect(res.status, `${range.code} × ${n}`).toBe(200);
+        expect(res.body.data.bom.find((l: { sku: string }) => l.sku === range.moduleSku).qtyUnits).toBe(n);
+        expect(res.body.data.bom.find((l: { sku: string }) => l.sku === range.controllerSku).qtyUnits).toBe(1);
+        // drawing and figures agree: one stack is the base plus every unit (domain rule: height = feet + Σ units)
+        const units = res.body.data.units as { heightMm: number }[];
+        expect(units.reduce((sum, u) => sum + u.heightMm, 0)).toBe(res.body.data.heightMm);
+      }
+      await agent.post('/api/stack-plans').send({ rangeId: range.code, modules: range.maxModules + 1 }).expect(400);
+    }
+  });
+
+  it('sizes every range from a reachable target to at least that usable energy', async () => {
+    const agent = await t.signIn('sales');
+    for (const range of demoRanges) {
+      const res = await agent.post('/api/stack-plans').send({ rangeId: range.code, targetUsableKwh: 9 });
+      expect(res.status, range.code).toBe(200);
+      expect(res.body.data.usableKwh).toBeGreaterThanOrEqual(9);
+    }
   });
 });
 
