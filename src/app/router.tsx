@@ -31,6 +31,7 @@ const router = createBrowserRouter([
         children: [
           { index: true, lazy: () => import('./routes/home.tsx').then((m) => ({ Component: m.HomeRoute })) },
           { path: paths.catalogue.path, lazy: () => import('./routes/catalogue.tsx').then((m) => ({ Component: m.CatalogueRoute })) },
+          { path: paths.catalogueBrowse.path, lazy: () => import('./routes/catalogue-browse.tsx').then((m) => ({ Component: m.CatalogueBrowseRoute })) },
           { path: paths.partNew.path, lazy: () => import('./routes/part-edit.tsx').then((m) => ({ Component: m.PartNewRoute })) },
           { path: paths.part.path, lazy: () => import('./routes/part.tsx').then((m) => ({ Component: m.PartRoute })) },
           { path: paths.partEdit.path, lazy: () => import('./routes/part-edit.tsx').then((m) => ({ Component: m.PartEditRoute })) },

@@ -4,6 +4,7 @@ export const paths = {
   signIn: { path: '/sign-in', href: (redirectTo?: string) => (redirectTo ? `/sign-in?redirectTo=${encodeURIComponent(redirectTo)}` : '/sign-in') },
   users: { path: '/admin/users', href: () => '/admin/users' },
   catalogue: { path: '/catalogue', href: (search?: string) => (search ? `/catalogue?${search}` : '/catalogue') },
+  catalogueBrowse: { path: '/catalogue/browse', href: () => '/catalogue/browse' },
   partNew: { path: '/catalogue/new', href: () => '/catalogue/new' },
   part: { path: '/catalogue/:sku', href: (sku: string) => `/catalogue/${encodeURIComponent(sku)}` },
   partEdit: { path: '/catalogue/:sku/edit', href: (sku: string) => `/catalogue/${encodeURIComponent(sku)}/edit` },

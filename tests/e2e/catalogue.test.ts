@@ -146,3 +146,19 @@ describe('editing a part (purchasing)', () => {
     await expectRows(page, (rows) => rows.some((r) => r.includes(renamed)), 'the renamed part in the results');
   });
 });
+
+describe('browsing by maker and range', () => {
+  it('lists makers, kinds of part and ranges with counts, each opening the filtered catalogue', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'installer@stackyard.test');
+    await openCatalogue(page);
+    await page.getByRole('link', { name: 'Browse by maker or range' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Browse the catalogue' }).waitFor();
+    const hearth = parts.filter((p) => p.sku.startsWith('QRB-HEARTH'));
+    expect(hearth.length).toBeGreaterThan(0);
+    await page.getByRole('link', { name: /Quarnby Hearth 51/ }).click();
+    await page.waitForURL(/\/catalogue\?range=QRB-HEARTH/);
+    await expectRows(page, (rows) => rows.length > 0, 'parts of the Hearth range');
+    expect(await resultCount(page)).toBeGreaterThanOrEqual(3);
+  });
+});

@@ -130,6 +130,9 @@ export function CatalogueRoute() {
       subtitle="Every part we carry, from every maker: search by words, SKU, GTIN or supplier SKU."
       actions={
         <>
+          <Link to={paths.catalogueBrowse.href()} className="inline-flex items-center gap-2 rounded-md border border-line bg-card px-3 py-1.5 text-sm font-medium hover:border-ink-soft">
+            Browse by maker or range
+          </Link>
           <a href={partsExportHref(filters)} download className="inline-flex items-center gap-2 rounded-md border border-line bg-card px-3 py-1.5 text-sm font-medium hover:border-ink-soft">
             <span aria-hidden="true">⤓</span>Export CSV
           </a>
