@@ -1,13 +1,12 @@
 import { useMemo } from 'react';
-import { Link } from 'react-router';
 import type { ColumnDef, SortingState } from '@tanstack/react-table';
 import type { PartSummary } from '@shared/contracts/parts.ts';
 import { CATEGORY_LABELS } from '@shared/contracts/part-attributes.ts';
 import { DataTable, type ColumnMeta } from '@/components/ui/data-table.tsx';
-import { paths } from '@/config/paths.ts';
 import { formatMoney } from '@/lib/format.ts';
 import { PartOutline } from './part-outline.tsx';
 import { AvailableQty, LifecycleTag } from './part-status.tsx';
+import { SkuLink } from './sku-link.tsx';
 
 const right: ColumnMeta = { align: 'right' };
 
@@ -42,11 +41,8 @@ export function PartsTable({
         id: 'sku',
         accessorKey: 'sku',
         header: 'SKU',
-        cell: (c) => (
-          <Link to={paths.part.href(c.row.original.sku)} tabIndex={-1} onClick={(e) => e.stopPropagation()} className="num whitespace-nowrap text-[13px] font-semibold text-ink hover:text-copper hover:underline">
-            {c.row.original.sku}
-          </Link>
-        ),
+        // Rows open on Enter or click; the link is for a new tab, so it stays out of the tab order.
+        cell: (c) => <SkuLink sku={c.row.original.sku} tabIndex={-1} onClick={(e) => e.stopPropagation()} className="text-[13px]" />,
       },
       {
         id: 'name',

@@ -1,12 +1,11 @@
 import { useMemo } from 'react';
-import { Link } from 'react-router';
 import type { ColumnDef } from '@tanstack/react-table';
 import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
 import { DataTable, type ColumnMeta } from '@/components/ui/data-table.tsx';
 import { StatusTag } from '@/components/ui/notice.tsx';
-import { paths } from '@/config/paths.ts';
 import { formatNumber } from '@/lib/format.ts';
 import { warehousesOf, type ShownLine, type ShownPlan } from '../lib/plan-view.ts';
+import { SkuLink } from '@/features/catalogue/components/sku-link.tsx';
 
 const right: ColumnMeta = { align: 'right' };
 
@@ -29,11 +28,7 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         id: 'sku',
         accessorKey: 'sku',
         header: 'SKU',
-        cell: (c) => (
-          <Link to={paths.part.href(c.row.original.sku)} className="num whitespace-nowrap font-semibold text-ink hover:text-copper hover:underline">
-            {c.row.original.sku}
-          </Link>
-        ),
+        cell: (c) => <SkuLink sku={c.row.original.sku} />,
       },
       {
         id: 'name',
