@@ -21,11 +21,14 @@ import {
   LFP_CELL_NOMINAL_V,
   RESIDENTIAL_FLOOR_KPA,
   dvcClass,
-  energyFromDod,
+  equivalentFullCycles,
   floorLoadKpa,
   lfpCellsFromNominal,
+  lfpMaxChargeVoltage,
+  lfpMinVoltage,
   lifetimeThroughput,
   nominalKwh as unitNominalKwh,
+  usableKwh as usableKwhOf,
   roundTo,
   splitRoundTripEfficiency,
   yearsAtOneCyclePerDay,
@@ -219,7 +222,7 @@ function cellCount(unit: PlannerUnit, assumptions: string[]): number {
 function unitMaxV(unit: PlannerUnit, assumptions: string[]): number {
   if (unit.maxChargeV != null) return unit.maxChargeV;
   const cells = cellCount(unit, assumptions);
-  const volts = times(cells, LFP_CELL_FULL_V);
+  const volts = lfpMaxChargeVoltage(cells);
   assumptions.push(
     `${unit.name}: full-charge voltage taken as ${cells} × ${LFP_CELL_FULL_V} V = ${fmt(volts)} V (LFP, common practice)`,
   );
@@ -229,7 +232,7 @@ function unitMaxV(unit: PlannerUnit, assumptions: string[]): number {
 function unitMinV(unit: PlannerUnit, assumptions: string[]): number {
   if (unit.minOperatingV != null) return unit.minOperatingV;
   const cells = cellCount(unit, assumptions);
-  const volts = times(cells, LFP_CELL_CUTOFF_V);
+  const volts = lfpMinVoltage(cells);
   // 2.5 V is the bottom of the usual cut-off band, so the window we test is the widest.
   assumptions.push(
     `${unit.name}: lowest voltage taken as ${cells} × ${LFP_CELL_CUTOFF_V} V = ${fmt(volts)} V (LFP cut-off, common practice)`,
@@ -238,11 +241,12 @@ function unitMinV(unit: PlannerUnit, assumptions: string[]): number {
 }
 
 function unitUsableKwh(unit: PlannerUnit, range: PlannerRange, assumptions: string[]): number {
-  if (unit.usableKwh != null) return unit.usableKwh;
-  const dod = range.defaultDodPct ?? DEFAULT_DOD_PCT;
-  const source = range.defaultDodPct == null ? 'planner default' : "the range's figure";
-  assumptions.push(`${unit.name}: usable energy taken as nominal × ${dod} % depth of discharge (${source})`);
-  return energyFromDod(unitNominalKwh(unit.nominalV, unit.ratedAh), dod);
+  if (unit.usableKwh == null) {
+    const dod = range.defaultDodPct ?? DEFAULT_DOD_PCT;
+    const source = range.defaultDodPct == null ? 'planner default' : "the range's figure";
+    assumptions.push(`${unit.name}: usable energy taken as nominal × ${dod} % depth of discharge (${source})`);
+  }
+  return usableKwhOf({ nominalKwh: unitNominalKwh(unit.nominalV, unit.ratedAh), makerUsableKwh: unit.usableKwh, dodPct: range.defaultDodPct });
 }
 
 function cellUnitsOf(range: PlannerRange, modulesPerStack: number): PlannerUnit[] {
@@ -493,7 +497,7 @@ function buildPlan(
   if (footprintM2 <= 0) assumptions.push('no unit width or depth given, so the floor load is not known');
 
   const throughput = throughputFor(range, modulesPerStack, stacks);
-  const cycles = throughput.mwh != null && usableKwh > 0 ? Math.round((throughput.mwh * 1000) / usableKwh) : null;
+  const cycles = throughput.mwh != null && usableKwh > 0 ? Math.round(equivalentFullCycles(throughput.mwh, usableKwh)) : null;
   const throughputAssumptions = [...throughput.notes];
   if (cycles != null) {
     throughputAssumptions.push('equivalent full cycles = lifetime throughput ÷ usable energy; years at one full cycle a day');
