@@ -159,10 +159,6 @@ export function createPartsIndex(search: SearchClient) {
       return sent;
     },
 
-    async remove(ids: string[]) {
-      if (ids.length) await check(index.deleteDocuments(ids));
-    },
-
     async rebuild(db: DbOrTx) {
       await check(search.client.deleteIndex(PARTS_INDEX)).catch(() => {});
       await this.configure();

@@ -144,9 +144,6 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
   }
 
   return {
-    findPart,
-    exactMatch,
-
     async lookup(actor: Actor, code: string) {
       authorize(actor, 'catalogue.view');
       const sku = await exactMatch(actor, code);

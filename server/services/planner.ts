@@ -164,7 +164,6 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
   const visibleTo = (actor: Actor) => (actor.role === 'installer' ? eq(stackPlans.companyId, actor.companyId ?? '00000000-0000-0000-0000-000000000000') : undefined);
 
   return {
-    loadRange,
     plan,
 
     async save(actor: Actor, input: SavePlanInput) {

@@ -55,7 +55,6 @@ export const PartInputSchema = z
     supplierSkus: z.array(z.strictObject({ supplier: z.string().min(1).max(16), sku: z.string().trim().min(1).max(64) })).max(20).default([]),
   })
   .superRefine((p, ctx) => {
-    if (p.attributes.category === undefined) return;
     if (p.lifecycle === 'superseded' && !p.supersededBySku)
       ctx.addIssue({ code: 'custom', path: ['supersededBySku'], message: 'Say which part supersedes this one.' });
     if (p.supersededBySku && p.supersededBySku === p.sku) ctx.addIssue({ code: 'custom', path: ['supersededBySku'], message: 'A part cannot supersede itself.' });
@@ -66,8 +65,6 @@ export const PartInputSchema = z
 export type PartInput = z.input<typeof PartInputSchema>;
 export type PartInputParsed = z.output<typeof PartInputSchema>;
 
-/** Category from the body must match the attributes' category: one source of truth. */
-export const categoryOf = (p: { attributes: { category: string } }) => p.attributes.category;
 
 export const PartListQuerySchema = z.object({
   q: z.string().trim().max(200).default(''),
