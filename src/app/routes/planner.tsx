@@ -15,7 +15,7 @@ import { rangeQueryOptions } from '@/features/planner/api/get-range.ts';
 import { useInverters, type InverterOption } from '@/features/planner/api/get-inverters.ts';
 import { useStackPlan } from '@/features/planner/api/plan-stack.ts';
 import { useDebouncedValue } from '@/features/planner/hooks/use-debounced-value.ts';
-import { usePlannerParams, wholeNumber, type PlannerParams } from '@/features/planner/hooks/use-planner-params.ts';
+import { usePlannerParams, numberOrNull, type PlannerParams } from '@/features/planner/hooks/use-planner-params.ts';
 import { fromServer, planLocally, withStockFrom } from '@/features/planner/lib/plan-view.ts';
 import { RangeCards } from '@/features/planner/components/range-cards.tsx';
 import { PlanControls } from '@/features/planner/components/plan-controls.tsx';
@@ -31,12 +31,12 @@ function requestFrom(detail: RangeDetail | undefined, p: PlannerParams): StackPl
   if (!detail) return null;
   const inverterSku = p.inverter ?? undefined;
   if (p.mode === 'target') {
-    const kwh = wholeNumber(p.kwh);
+    const kwh = numberOrNull(p.kwh);
     return kwh === null ? null : { rangeId: detail.id, targetUsableKwh: kwh, inverterSku };
   }
-  const modules = wholeNumber(p.modules);
+  const modules = numberOrNull(p.modules);
   if (modules === null) return null;
-  return { rangeId: detail.id, modules, stacks: wholeNumber(p.stacks) ?? 1, inverterSku };
+  return { rangeId: detail.id, modules, stacks: numberOrNull(p.stacks) ?? 1, inverterSku };
 }
 
 function plannerInverter(sku: string | undefined | null, inverters: InverterOption[], detail: RangeDetail | undefined): PlannerInverter | null {
@@ -74,8 +74,8 @@ export function PlannerRoute() {
   const serverProblem = !server.isFetching && server.error && JSON.stringify(toConfirm) === JSON.stringify(request) ? server.error.message : null;
 
   const choose = (r: RangeSummary) => {
-    const modules = wholeNumber(params.modules);
-    const stacks = wholeNumber(params.stacks) ?? 1;
+    const modules = numberOrNull(params.modules);
+    const stacks = numberOrNull(params.stacks) ?? 1;
     const other = details[r.code];
     const keepInverter = !params.inverter || (other?.inverterSkus ?? []).includes(params.inverter);
     setSaving(false);

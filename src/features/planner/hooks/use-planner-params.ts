@@ -49,8 +49,8 @@ export function usePlannerParams() {
   return { params, update };
 }
 
-/** A whole number from a box, or null while it is empty or not a number. */
-export function wholeNumber(text: string): number | null {
+/** The number typed in a box (modules, stacks or kWh), or null while it is empty or not a number. */
+export function numberOrNull(text: string): number | null {
   if (text.trim() === '') return null;
   const n = Number(text);
   return Number.isFinite(n) ? n : null;
