@@ -36,8 +36,13 @@ export const TextField = forwardRef<HTMLInputElement, FieldProps & InputHTMLAttr
   );
 });
 
-export const SelectField = forwardRef<HTMLSelectElement, FieldProps & SelectHTMLAttributes<HTMLSelectElement>>(function SelectField(
-  { label, error, hint, className = '', id, children, ...props },
+/** Options from a list of codes and their display names. */
+export function optionsOf<C extends string>(codes: readonly C[], labels: Record<C, string>) {
+  return codes.map((value) => ({ value, label: labels[value] }));
+}
+
+export const SelectField = forwardRef<HTMLSelectElement, FieldProps & SelectHTMLAttributes<HTMLSelectElement> & { options?: readonly { value: string; label: string }[] }>(function SelectField(
+  { label, error, hint, className = '', id, children, options, ...props },
   ref,
 ) {
   const autoId = useId();
@@ -49,6 +54,11 @@ export const SelectField = forwardRef<HTMLSelectElement, FieldProps & SelectHTML
       </label>
       <select ref={ref} id={selectId} aria-invalid={error ? true : undefined} aria-describedby={error ? `${selectId}-error` : undefined} className={control} {...props}>
         {children}
+        {options?.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
       </select>
       {hint && !error && <p className="mt-1 text-xs text-ink-soft">{hint}</p>}
       {error && <FieldError id={`${selectId}-error`}>{error}</FieldError>}

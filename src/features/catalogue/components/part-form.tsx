@@ -4,7 +4,7 @@ import { Link } from 'react-router';
 import type { Maker, PartDetail, PartInputParsed } from '@shared/contracts/parts.ts';
 import { LIFECYCLES, LIFECYCLE_LABELS, UNITS } from '@shared/contracts/parts.ts';
 import { CATEGORY_CODES, CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
-import { FieldError, SelectField, TextField } from '@/components/ui/field.tsx';
+import { FieldError, SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
 import { Button } from '@/components/ui/button.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { applyServerErrors } from '@/lib/form-errors.ts';
@@ -79,22 +79,12 @@ export function PartForm({ part, makers, withCost, saving, onSave, cancelHref }:
               setValue('attributes', { category: e.target.value as CategoryCode }, { shouldDirty: true });
               clearErrors('attributes');
             }}
+            options={optionsOf(CATEGORY_CODES, CATEGORY_LABELS)}
           >
             <option value="">Choose a category…</option>
-            {CATEGORY_CODES.map((c) => (
-              <option key={c} value={c}>
-                {CATEGORY_LABELS[c]}
-              </option>
-            ))}
           </SelectField>
           <TextField label="GTIN" mono inputMode="numeric" autoComplete="off" error={err('gtin')} hint="8, 12, 13 or 14 digits from the barcode; leave empty if none." {...register('gtin')} />
-          <SelectField label="Lifecycle" error={err('lifecycle')} {...register('lifecycle')}>
-            {LIFECYCLES.map((l) => (
-              <option key={l} value={l}>
-                {LIFECYCLE_LABELS[l]}
-              </option>
-            ))}
-          </SelectField>
+          <SelectField label="Lifecycle" error={err('lifecycle')} {...register('lifecycle')} options={optionsOf(LIFECYCLES, LIFECYCLE_LABELS)} />
           {lifecycle === 'superseded' && <TextField label="Superseded by (SKU)" mono autoComplete="off" error={err('supersededBySku')} {...register('supersededBySku')} />}
           <TextArea label="Description" className="sm:col-span-2 lg:col-span-4" rows={3} error={err('description')} {...register('description')} />
         </div>
@@ -102,13 +92,7 @@ export function PartForm({ part, makers, withCost, saving, onSave, cancelHref }:
 
       <Section title="Selling and size">
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          <SelectField label="Sold as" error={err('unit')} {...register('unit')}>
-            {UNITS.map((u) => (
-              <option key={u} value={u}>
-                {UNIT_LABELS[u]}
-              </option>
-            ))}
-          </SelectField>
+          <SelectField label="Sold as" error={err('unit')} {...register('unit')} options={optionsOf(UNITS, UNIT_LABELS)} />
           <TextField label="Pack size" mono type="number" step={1} min={1} error={err('packSize')} hint="Units in one sellable pack (feet: 4)." {...register('packSize', { setValueAs: toNumber })} />
           <Controller control={control} name="listPriceCents" render={({ field }) => <MoneyField label="List price ($, ex GST)" cents={field.value ?? null} onCents={field.onChange} onBlur={field.onBlur} error={err('listPriceCents')} />} />
           {withCost && (

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { ROLES, ROLE_LABELS, type Role } from '@shared/roles.ts';
 import type { UserRow } from '@shared/contracts/users.ts';
-import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
 import { Button } from '@/components/ui/button.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { useCompanies } from '../api/get-companies.ts';
@@ -22,13 +22,7 @@ export function UserEditor({ user, onClose }: { user: UserRow; onClose: () => vo
   return (
     <div className="space-y-4" aria-label={`Edit ${user.name}`}>
       <div className="grid gap-3 sm:grid-cols-3">
-        <SelectField label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)}>
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
-        </SelectField>
+        <SelectField label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)} options={optionsOf(ROLES, ROLE_LABELS)} />
         <SelectField label="Company" value={companyId} onChange={(e) => setCompanyId(e.target.value)}>
           <option value="">{role === 'installer' ? 'Choose a customer company…' : 'The wholesaler'}</option>
           {choices.map((c) => (

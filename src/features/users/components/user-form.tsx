@@ -3,7 +3,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CreateUserSchema, type CreateUserInput, type UserRow } from '@shared/contracts/users.ts';
 import { ROLES, ROLE_LABELS } from '@shared/roles.ts';
-import { TextField, SelectField } from '@/components/ui/field.tsx';
+import { TextField, SelectField, optionsOf } from '@/components/ui/field.tsx';
 import { Button } from '@/components/ui/button.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { applyServerErrors } from '@/lib/form-errors.ts';
@@ -37,13 +37,7 @@ export function NewUserForm({ onDone }: { onDone: (u: UserRow) => void }) {
     <form onSubmit={submit} noValidate className="grid gap-3 sm:grid-cols-2" aria-label="New user">
       <TextField label="Name" error={err.name?.message} {...form.register('name')} />
       <TextField label="E-mail" type="email" error={err.email?.message} {...form.register('email')} />
-      <SelectField label="Role" error={err.role?.message} {...form.register('role')}>
-        {ROLES.map((r) => (
-          <option key={r} value={r}>
-            {ROLE_LABELS[r]}
-          </option>
-        ))}
-      </SelectField>
+      <SelectField label="Role" error={err.role?.message} {...form.register('role')} options={optionsOf(ROLES, ROLE_LABELS)} />
       <SelectField label="Company" error={err.companyId?.message} {...form.register('companyId')}>
         <option value="">{role === 'installer' ? 'Choose a customer company…' : 'The wholesaler'}</option>
         {choices.map((c) => (
