@@ -2,7 +2,8 @@ import cluster from 'node:cluster';
 import { readEnv } from './env.ts';
 import { migrateDb } from './db/client.ts';
 import { buildContext } from './context.ts';
-import { createApp, createServices } from './app.ts';
+import { createApp } from './app.ts';
+import { createPartsIndex } from './search/parts-index.ts';
 
 const env = readEnv();
 const context = buildContext(env);
@@ -11,7 +12,7 @@ if (cluster.isPrimary) {
   // Start-up work happens once, before any worker serves.
   await migrateDb(context.db);
   // The search engine may have restarted empty (the local stand-in keeps its index in memory).
-  const index = await createServices(context).partsIndex.ensure(context.db).catch((e: Error) => {
+  const index = await createPartsIndex(context.search).ensure(context.db).catch((e: Error) => {
     context.logger.error({ err: e }, 'search index not ready: catalogue search will fail until the search server answers');
     return null;
   });

@@ -50,8 +50,7 @@ export class Api {
   ) {
     this.register(def);
     const run: RequestHandler = async (req, res) => {
-      const actor = req.actor;
-      if (!def.public && !actor) throw new UnauthenticatedError();
+      const actor = req.actor; // the gate below has already refused a missing session
       const body = parse(def.body, req.body, 'body');
       const query = parse(def.query, req.query, 'query');
       const params = parse(def.params, req.params, 'path');
