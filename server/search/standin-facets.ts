@@ -61,6 +61,8 @@ export class FacetField {
   /** One (value, id) pair per number held, in numeric order, for range scans and stats. */
   #numberIndex: { values: Float64Array; ids: Int32Array } | null = null;
   #sortedKeys: string[] | null = null;
+  /** Each document's values as positions in #keys(), for counting over the matched documents. */
+  #valuesByDoc: { start: Int32Array; keys: Int32Array } | null = null;
 
   constructor(readonly attribute: string) {}
 
@@ -68,6 +70,7 @@ export class FacetField {
     const { present, leaves } = valuesAt(doc, this.attribute);
     if (!present) return;
     this.present.add(id);
+    this.#valuesByDoc = null;
     for (const leaf of leaves) {
       const key = facetKey(leaf);
       if (addId(this.#idsByKey, key, id)) {
@@ -83,6 +86,7 @@ export class FacetField {
 
   remove(id: number, doc: Json): void {
     if (!this.present.delete(id)) return;
+    this.#valuesByDoc = null;
     for (const leaf of valuesAt(doc, this.attribute).leaves) {
       const key = facetKey(leaf);
       if (removeId(this.#idsByKey, key, id)) {
@@ -111,14 +115,23 @@ export class FacetField {
     return ids.subarray(start, Math.max(start, end));
   }
 
-  /** Value counts over the selected documents, as Meilisearch's facetDistribution. */
-  distribution(selected: DocBits, maxValues: number, order: 'alpha' | 'count'): Record<string, number> {
+  /**
+   * Value counts over the matched documents, as Meilisearch's facetDistribution. Counting walks
+   * the matched ids (often a few hundred), not every document holding each value.
+   */
+  distribution(matched: ArrayLike<number>, maxValues: number, order: 'alpha' | 'count'): Record<string, number> {
+    const keys = this.#keys();
+    const { start, keys: valueKeys } = this.#documentValues();
+    const counts = new Int32Array(keys.length);
+    for (let i = 0; i < matched.length; i++) {
+      const id = matched[i];
+      if (id + 1 >= start.length) continue;
+      for (let j = start[id]; j < start[id + 1]; j++) counts[valueKeys[j]]++;
+    }
     const counted: [key: string, count: number][] = [];
-    for (const key of this.#keys()) {
-      let count = 0;
-      for (const id of this.#idsByKey.get(key)!) count += selected[id];
-      if (count === 0) continue;
-      counted.push([key, count]);
+    for (let k = 0; k < keys.length; k++) {
+      if (counts[k] === 0) continue;
+      counted.push([keys[k], counts[k]]);
       // In alphabetical order the first maxValues values found are the answer.
       if (order === 'alpha' && counted.length === maxValues) break;
     }
@@ -128,13 +141,15 @@ export class FacetField {
   }
 
   /** Lowest and highest number among the selected documents, for facetStats. */
-  stats(selected: DocBits): { min: number; max: number } | undefined {
+  stats(selected: () => DocBits): { min: number; max: number } | undefined {
+    if (this.#idsByNumber.size === 0) return undefined;
     const { values, ids } = this.#numbers();
+    const bits = selected();
     let low = 0;
-    while (low < ids.length && !selected[ids[low]]) low++;
+    while (low < ids.length && !bits[ids[low]]) low++;
     if (low === ids.length) return undefined;
     let high = ids.length - 1;
-    while (!selected[ids[high]]) high--;
+    while (!bits[ids[high]]) high--;
     return { min: values[low], max: values[high] };
   }
 
@@ -144,6 +159,29 @@ export class FacetField {
       .sort(compareFacetKeys)
       .map(({ key }) => key);
     return this.#sortedKeys;
+  }
+
+  /** Compressed rows: document id → its value positions, rebuilt after a change. */
+  #documentValues(): { start: Int32Array; keys: Int32Array } {
+    if (!this.#valuesByDoc) {
+      const keys = this.#keys();
+      let size = 0;
+      let total = 0;
+      for (const ids of this.#idsByKey.values()) {
+        total += ids.size;
+        for (const id of ids) if (id >= size) size = id + 1;
+      }
+      const start = new Int32Array(size + 1);
+      for (const ids of this.#idsByKey.values()) for (const id of ids) start[id + 1]++;
+      for (let id = 0; id < size; id++) start[id + 1] += start[id];
+      const fill = start.slice(0, size);
+      const valueKeys = new Int32Array(total);
+      keys.forEach((key, position) => {
+        for (const id of this.#idsByKey.get(key)!) valueKeys[fill[id]++] = position;
+      });
+      this.#valuesByDoc = { start, keys: valueKeys };
+    }
+    return this.#valuesByDoc;
   }
 
   #numbers(): { values: Float64Array; ids: Int32Array } {

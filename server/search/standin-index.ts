@@ -18,6 +18,7 @@ import {
 } from './standin-settings.ts';
 import {
   isPlainObject,
+  MAX_QUERY_WORDS,
   normalizeText,
   TextIndex,
   valuesAt,
@@ -51,9 +52,16 @@ export type DocumentsRequest = {
 
 type SortCriterion = { attribute: string; descending: boolean };
 type Compare<T> = (a: T, b: T) => number;
+/**
+ * One ranking rule as a number per document: `values[id]` lies in [0, top], better first (or
+ * last when `descending`); a negative value means the document lacks it and ranks after all.
+ */
+type RankKey = { values: ArrayLike<number>; top: number; descending: boolean };
+type SortRanks = { ranks: Int32Array; distinct: number };
 
 const DOCUMENT_ID = /^[A-Za-z0-9_-]{1,511}$/;
 const DEFAULT_LIMIT = 20;
+const FILTER_RESULTS_KEPT = 64;
 
 function now(): string {
   return new Date().toISOString();
@@ -110,13 +118,15 @@ function sortValue(leaf: Leaf): number | string {
 }
 
 /** Orders by a precomputed rank; documents without the attribute come last in both directions. */
-function byRank(ranks: Int32Array, descending: boolean): Compare<number> {
-  return (a, b) => {
-    const rankA = ranks[a];
-    const rankB = ranks[b];
-    if (rankA < 0 || rankB < 0) return Number(rankA < 0) - Number(rankB < 0);
-    return descending ? rankB - rankA : rankA - rankB;
-  };
+function byRank({ ranks, distinct }: SortRanks, descending: boolean): RankKey {
+  return { values: ranks, top: distinct - 1, descending };
+}
+
+/** A rank key's value for one document, in [0, top + 1]. */
+function rankOf(key: RankKey, id: number): number {
+  const value = key.values[id];
+  if (value < 0) return key.top + 1;
+  return key.descending ? key.top - value : value;
 }
 
 function parseSortCriterion(expression: string, code: string): SortCriterion {
@@ -129,6 +139,14 @@ function parseSortCriterion(expression: string, code: string): SortCriterion {
     );
   }
   return { attribute: match[1], descending: match[2] === 'desc' };
+}
+
+/** The ids whose bit is set, in their order. */
+function keepSelected(ids: Int32Array, bits: DocBits): Int32Array {
+  const kept = new Int32Array(ids.length);
+  let count = 0;
+  for (let i = 0; i < ids.length; i++) if (bits[ids[i]]) kept[count++] = ids[i];
+  return kept.subarray(0, count);
 }
 
 function copyPath(source: Json, target: Json, [head, ...rest]: string[]): void {
@@ -149,22 +167,33 @@ function pickAttributes(doc: Json, attributes: string[]): Json {
 }
 
 /**
- * The first `count` ids ordered by the comparators in turn, then by internal id (document order,
- * Meilisearch's final tie-break). A bounded max-heap keeps this O(n log count): a page needs only
- * a few of possibly 50,000 matches.
+ * The first `count` ids ordered by the rank keys in turn, then by internal id (document order,
+ * Meilisearch's final tie-break). The keys are packed into one number per document when their
+ * spans allow, as a bucket sort would order them; a bounded max-heap then keeps this
+ * O(n log count): a page needs only a few of possibly 50,000 matches.
  */
-function firstInOrder(ids: number[], count: number, comparators: Compare<number>[]): number[] {
-  // Ids are gathered in internal id order, which is already the answer without comparators.
-  if (comparators.length === 0) return ids.slice(0, count);
-  if (count <= 0) return [];
-  const compare: Compare<number> = (a, b) => {
-    for (const comparator of comparators) {
-      const order = comparator(a, b);
-      if (order !== 0) return order;
+function firstInOrder(ids: Int32Array, count: number, keys: RankKey[]): Int32Array {
+  // Ids are gathered in internal id order, which is already the answer without keys.
+  if (keys.length === 0) return ids.slice(0, count);
+  if (count <= 0) return new Int32Array(0);
+  let compare: Compare<number>;
+  if (keys.reduce((product, key) => product * (key.top + 2), 1) <= Number.MAX_SAFE_INTEGER) {
+    const score = new Float64Array(ids.length);
+    for (const key of keys) {
+      const span = key.top + 2;
+      for (let i = 0; i < ids.length; i++) score[i] = score[i] * span + rankOf(key, ids[i]);
     }
-    return a - b;
-  };
-  const heap: number[] = []; // heap[0] is the worst id kept so far
+    compare = (a, b) => score[a] - score[b] || ids[a] - ids[b];
+  } else {
+    compare = (a, b) => {
+      for (const key of keys) {
+        const order = rankOf(key, ids[a]) - rankOf(key, ids[b]);
+        if (order !== 0) return order;
+      }
+      return ids[a] - ids[b];
+    };
+  }
+  const heap: number[] = []; // positions in ids; heap[0] is the worst kept so far
   const worse = (i: number, j: number) => compare(heap[i], heap[j]) > 0;
   const swap = (i: number, j: number) => ([heap[i], heap[j]] = [heap[j], heap[i]]);
   const siftUp = (i: number) => {
@@ -186,16 +215,16 @@ function firstInOrder(ids: number[], count: number, comparators: Compare<number>
       i = worst;
     }
   };
-  for (const id of ids) {
+  for (let position = 0; position < ids.length; position++) {
     if (heap.length < count) {
-      heap.push(id);
+      heap.push(position);
       siftUp(heap.length - 1);
-    } else if (compare(id, heap[0]) < 0) {
-      heap[0] = id;
+    } else if (compare(position, heap[0]) < 0) {
+      heap[0] = position;
       siftDown(0);
     }
   }
-  return heap.sort(compare);
+  return Int32Array.from(heap.sort(compare), (position) => ids[position]);
 }
 
 export class StandinIndex {
@@ -211,7 +240,9 @@ export class StandinIndex {
   #fieldOrder: string[] = [];
   #text: TextIndex | null = null;
   #facets = new Map<string, FacetField>();
-  #sortRanks = new Map<string, Int32Array>();
+  #sortRanks = new Map<string, SortRanks>();
+  /** Evaluated search filters by their JSON, until the next write: most searches repeat a few. */
+  #filterResults = new Map<string, DocBits>();
 
   constructor(
     readonly uid: string,
@@ -295,6 +326,7 @@ export class StandinIndex {
     this.#settings = next;
     if (changed('searchableAttributes') || changed('stopWords')) this.#text = null;
     if (changed('filterableAttributes')) this.#facets.clear();
+    this.#filterResults.clear();
     this.#ensureTextIndex();
     this.updatedAt = now();
   }
@@ -319,13 +351,17 @@ export class StandinIndex {
     const limit = request.limit ?? DEFAULT_LIMIT;
     const matched = this.#selectedIds(bits);
     const sort = this.#parseSort(request.sort, 'invalid_document_sort');
-    const comparators = sort.map((criterion) => this.#byAttribute(criterion));
-    const page = firstInOrder(matched, offset + limit, comparators).slice(offset);
+    const keys = sort.map((criterion) => this.#byAttribute(criterion));
+    const page = firstInOrder(matched, offset + limit, keys).slice(offset);
     const project = this.#projector(request.fields);
-    return { results: page.map((id) => project(this.#docs[id]!)), offset, limit, total: matched.length };
+    return { results: Array.from(page, (id) => project(this.#docs[id]!)), offset, limit, total: matched.length };
   }
 
-  search(request: SearchRequest): Json {
+  /**
+   * One search. Searches of one multi-search request share `textMemo`, so the full-text matching
+   * for a query is done once however many filter and facet variants of it are asked for.
+   */
+  search(request: SearchRequest, textMemo = new Map<string, TextMatches | null>()): Json {
     const started = performance.now();
     const sort = this.#parseSort(request.sort, 'invalid_search_sort');
     if (sort.length > 0 && !this.#settings.rankingRules.includes('sort')) {
@@ -336,16 +372,14 @@ export class StandinIndex {
       );
     }
     const facets = this.#facetFields(request.facets ?? []);
-    const filter = parseFilter(request.filter, 'invalid_search_filter');
-    const filterBits = filter ? evaluateFilter(filter, this.#filterSource('invalid_search_filter')) : null;
+    const filterBits = this.#searchFilter(request.filter);
 
     const size = this.#docs.length;
-    const text = request.q ? this.#ensureTextIndex().search(request.q, size, this.#textOptions(request)) : null;
-    let matched: number[];
-    let matchedBits: DocBits;
+    const text = request.q ? this.#textMatches(request.q, request, textMemo) : null;
+    let matched: Int32Array;
+    let matchedBits: DocBits | null = null;
     if (text) {
-      matched = filterBits ? text.ids.filter((id) => filterBits[id]) : text.ids;
-      matchedBits = bitsFromIds(matched, size);
+      matched = filterBits ? keepSelected(text.ids, filterBits) : text.ids;
     } else {
       matchedBits = filterBits ?? this.#liveBits();
       matched = this.#selectedIds(matchedBits);
@@ -355,10 +389,24 @@ export class StandinIndex {
     const window = this.#paginate(request, matched.length, response);
     const project = this.#projector(request.attributesToRetrieve);
     const ranked = firstInOrder(matched, window.end, this.#rankingRules(text, sort));
-    response.hits = ranked.slice(window.start, window.end).map((id) => project(this.#docs[id]!));
-    if (request.facets) Object.assign(response, this.#facetSummary(facets, matchedBits));
+    response.hits = Array.from(ranked.subarray(window.start, window.end), (id) => project(this.#docs[id]!));
+    const bits = () => (matchedBits ??= bitsFromIds(matched, size));
+    if (request.facets) Object.assign(response, this.#facetSummary(facets, matched, bits));
     response.processingTimeMs = Math.round(performance.now() - started);
     return response;
+  }
+
+  /** The documents a search filter selects (null for no filter); callers must not write to it. */
+  #searchFilter(input: unknown): DocBits | null {
+    const key = JSON.stringify(input ?? null);
+    const cached = this.#filterResults.get(key);
+    if (cached) return cached;
+    const filter = parseFilter(input, 'invalid_search_filter');
+    if (!filter) return null;
+    const bits = evaluateFilter(filter, this.#filterSource('invalid_search_filter'));
+    if (this.#filterResults.size >= FILTER_RESULTS_KEPT) this.#filterResults.delete(this.#filterResults.keys().next().value!);
+    this.#filterResults.set(key, bits);
+    return bits;
   }
 
   #resolvePrimaryKey(documents: Json[], requestedKey: string | undefined): string | null {
@@ -421,6 +469,7 @@ export class StandinIndex {
     // Internal ids are never reused while documents remain; start afresh once the index is empty.
     if (this.documentCount === 0 && this.#docs.length > 0) this.clear();
     this.#sortRanks.clear();
+    this.#filterResults.clear();
     this.#ensureTextIndex();
     this.updatedAt = now();
   }
@@ -445,6 +494,13 @@ export class StandinIndex {
     return this.#text;
   }
 
+  #textMatches(q: string, request: SearchRequest, memo: Map<string, TextMatches | null>): TextMatches | null {
+    const options = this.#textOptions(request);
+    const key = `${options.matchingStrategy}\u0000${q}`;
+    if (!memo.has(key)) memo.set(key, this.#ensureTextIndex().search(q, this.#docs.length, options));
+    return memo.get(key)!;
+  }
+
   #textOptions(request: SearchRequest): TextSearchOptions {
     return {
       typoTolerance: this.#settings.typoTolerance,
@@ -458,10 +514,11 @@ export class StandinIndex {
     return this.#live.subarray(0, this.#docs.length);
   }
 
-  #selectedIds(bits: DocBits): number[] {
-    const ids: number[] = [];
-    for (let id = 0; id < bits.length; id++) if (bits[id]) ids.push(id);
-    return ids;
+  #selectedIds(bits: DocBits): Int32Array {
+    const ids = new Int32Array(bits.length);
+    let count = 0;
+    for (let id = 0; id < bits.length; id++) if (bits[id]) ids[count++] = id;
+    return ids.subarray(0, count);
   }
 
   #filterSource(code: string): FilterSource {
@@ -488,14 +545,14 @@ export class StandinIndex {
     return expanded.map((name) => this.#facetField(name, 'invalid_search_facets'));
   }
 
-  #facetSummary(fields: FacetField[], matched: DocBits): Json {
+  #facetSummary(fields: FacetField[], matched: Int32Array, matchedBits: () => DocBits): Json {
     const { maxValuesPerFacet, sortFacetValuesBy } = this.#settings.faceting;
     const facetDistribution: Json = {};
     const facetStats: Json = {};
     for (const field of fields) {
       const order = sortFacetValuesBy[field.attribute] ?? sortFacetValuesBy['*'] ?? 'alpha';
       facetDistribution[field.attribute] = field.distribution(matched, maxValuesPerFacet, order);
-      const stats = field.stats(matched);
+      const stats = field.stats(matchedBits);
       if (stats) facetStats[field.attribute] = stats;
     }
     return { facetDistribution, facetStats };
@@ -517,32 +574,32 @@ export class StandinIndex {
   }
 
   /**
-   * Comparators for the ranking rules in order, like Meilisearch's bucket sort. Rules without a
+   * Rank keys for the ranking rules in order, like Meilisearch's bucket sort. Rules without a
    * signal here (proximity, wordPosition) are skipped, and text rules do not apply to a
    * placeholder search.
    */
-  #rankingRules(text: TextMatches | null, sort: SortCriterion[]): Compare<number>[] {
-    const comparators: Compare<number>[] = [];
+  #rankingRules(text: TextMatches | null, sort: SortCriterion[]): RankKey[] {
+    const keys: RankKey[] = [];
     for (const rule of this.#settings.rankingRules) {
-      if (text && rule === 'words') comparators.push((a, b) => text.words[b] - text.words[a]);
-      else if (text && rule === 'typo') comparators.push((a, b) => text.typos[a] - text.typos[b]);
+      if (text && rule === 'words') keys.push({ values: text.words, top: MAX_QUERY_WORDS, descending: true });
+      else if (text && rule === 'typo') keys.push({ values: text.typos, top: MAX_QUERY_WORDS, descending: false });
       else if (text && (rule === 'attribute' || rule === 'attributeRank')) {
-        comparators.push((a, b) => text.attribute[a] - text.attribute[b]);
-      } else if (text && rule === 'exactness') comparators.push((a, b) => text.exact[b] - text.exact[a]);
-      else if (rule === 'sort') comparators.push(...sort.map((criterion) => this.#byAttribute(criterion)));
+        keys.push({ values: text.attribute, top: text.attributes - 1, descending: false });
+      } else if (text && rule === 'exactness') keys.push({ values: text.exact, top: MAX_QUERY_WORDS, descending: true });
+      else if (rule === 'sort') keys.push(...sort.map((criterion) => this.#byAttribute(criterion)));
       else if (/:(asc|desc)$/.test(rule)) {
-        comparators.push(this.#byAttribute(parseSortCriterion(rule, 'invalid_settings_ranking_rules')));
+        keys.push(this.#byAttribute(parseSortCriterion(rule, 'invalid_settings_ranking_rules')));
       }
     }
-    return comparators;
+    return keys;
   }
 
-  #byAttribute({ attribute, descending }: SortCriterion): Compare<number> {
+  #byAttribute({ attribute, descending }: SortCriterion): RankKey {
     return byRank(this.#ranks(attribute), descending);
   }
 
   /** Rank of every document's value for an attribute (-1 when absent), cached until the next write. */
-  #ranks(attribute: string): Int32Array {
+  #ranks(attribute: string): SortRanks {
     const cached = this.#sortRanks.get(attribute);
     if (cached) return cached;
     const entries: [id: number, value: number | string][] = [];
@@ -557,8 +614,9 @@ export class StandinIndex {
       if (i > 0 && compareSortValues(entries[i - 1][1], value) !== 0) rank++;
       ranks[id] = rank;
     });
-    this.#sortRanks.set(attribute, ranks);
-    return ranks;
+    const sorted = { ranks, distinct: entries.length === 0 ? 0 : rank + 1 };
+    this.#sortRanks.set(attribute, sorted);
+    return sorted;
   }
 
   /** Meilisearch pagination: offset/limit by default, page/hitsPerPage when either is given. */
@@ -587,6 +645,14 @@ export class StandinIndex {
     const attributes = wanted.includes('*')
       ? displayed
       : wanted.filter((attribute) => displaysAll || matchesAttributeList(displayed, attribute));
+    // Top-level names (the usual case) are copied directly; dotted paths walk nested objects.
+    if (attributes.every((attribute) => !attribute.includes('.'))) {
+      return (doc) => {
+        const picked: Json = {};
+        for (const attribute of attributes) if (Object.hasOwn(doc, attribute)) picked[attribute] = doc[attribute];
+        return picked;
+      };
+    }
     return (doc) => pickAttributes(doc, attributes);
   }
 }

@@ -12,7 +12,7 @@ export type Leaf = string | number | boolean;
 
 /** Ranking signals by internal document id, for the documents listed in `ids`. */
 export type TextMatches = {
-  ids: number[];
+  ids: Int32Array;
   /** Query words the document matched (the `words` rule). */
   words: Uint8Array;
   /** Query words matched only through a typo (the `typo` rule). */
@@ -21,6 +21,8 @@ export type TextMatches = {
   exact: Uint8Array;
   /** Position in searchableAttributes of the best matching attribute (the `attribute` rule). */
   attribute: Uint16Array;
+  /** How many searchable attributes there are: `attribute` values lie below it. */
+  attributes: number;
 };
 
 export type TextSearchOptions = {
@@ -29,15 +31,53 @@ export type TextSearchOptions = {
   prefixSearch: boolean;
 };
 
-/** Document id → best (lowest) rank of an attribute containing the term. */
-type Postings = Map<number, number>;
+/**
+ * The documents holding a term, each with the best (lowest) rank of an attribute containing it.
+ * Writes go to a map; searches read a packed copy made on first read after a change, since
+ * walking typed arrays is many times faster than walking a map of 50,000 entries.
+ */
+class Postings {
+  readonly #ranks = new Map<number, number>();
+  #packed: { ids: Int32Array; ranks: Uint16Array } | null = null;
+
+  get size(): number {
+    return this.#ranks.size;
+  }
+
+  set(id: number, rank: number): void {
+    const best = this.#ranks.get(id);
+    if (best !== undefined && best <= rank) return;
+    this.#ranks.set(id, rank);
+    this.#packed = null;
+  }
+
+  delete(id: number): boolean {
+    if (!this.#ranks.delete(id)) return false;
+    this.#packed = null;
+    return true;
+  }
+
+  packed(): { ids: Int32Array; ranks: Uint16Array } {
+    if (!this.#packed) {
+      const ids = new Int32Array(this.#ranks.size);
+      const ranks = new Uint16Array(this.#ranks.size);
+      let i = 0;
+      for (const [id, rank] of this.#ranks) {
+        ids[i] = id;
+        ranks[i++] = rank;
+      }
+      this.#packed = { ids, ranks };
+    }
+    return this.#packed;
+  }
+}
 
 // How a document matched a query word; a better match wins when several do.
 const Quality = { None: 0, Typo: 1, Prefix: 2, Exact: 3 } as const;
 type Quality = (typeof Quality)[keyof typeof Quality];
 
 const SEPARATORS = /[^\p{L}\p{N}]+/u;
-const MAX_QUERY_WORDS = 10;
+export const MAX_QUERY_WORDS = 10;
 
 // eslint-disable-next-line no-control-regex -- the ASCII range starts at NUL
 const NON_ASCII = /[^\u0000-\u007f]/;
@@ -117,8 +157,10 @@ class WordMatch {
 
   mark(postings: Postings | undefined, quality: Quality): void {
     if (!postings) return;
-    for (const [id, rank] of postings) {
-      if (this.quality[id] === Quality.None || rank < this.attribute[id]) this.attribute[id] = rank;
+    const { ids, ranks } = postings.packed();
+    for (let i = 0; i < ids.length; i++) {
+      const id = ids[i];
+      if (this.quality[id] === Quality.None || ranks[i] < this.attribute[id]) this.attribute[id] = ranks[i];
       if (quality > this.quality[id]) this.quality[id] = quality;
     }
   }
@@ -137,9 +179,7 @@ export class TextIndex {
   add(id: number, doc: Json): void {
     this.#fields.forEach((field, rank) => {
       for (const term of this.#termsOf(searchableText(doc, field))) {
-        const postings = this.#terms.fetch(term, () => new Map());
-        const best = postings.get(id);
-        if (best === undefined || rank < best) postings.set(id, rank);
+        this.#terms.fetch(term, () => new Postings()).set(id, rank);
       }
     });
   }
@@ -168,35 +208,41 @@ export class TextIndex {
       return this.#matchWord(word, size, prefix, typoBudget(word, options.typoTolerance));
     });
     const fewestWords = options.matchingStrategy === 'all' ? words.length : 1;
+    const ids = new Int32Array(size);
     const result: TextMatches = {
-      ids: [],
+      ids,
       words: new Uint8Array(size),
       typos: new Uint8Array(size),
       exact: new Uint8Array(size),
       attribute: new Uint16Array(size),
+      attributes: this.#fields.length,
     };
-    const first = matches[0].quality;
+    const qualities = matches.map((match) => match.quality);
+    const attributes = matches.map((match) => match.attribute);
+    const first = qualities[0];
+    let count = 0;
     for (let id = 0; id < size; id++) {
       if (first[id] === Quality.None) continue;
       let matched = 0;
       let typos = 0;
       let exact = 0;
-      let attribute = Infinity;
-      for (const match of matches) {
-        const quality = match.quality[id];
+      let attribute = attributes[0][id];
+      for (let w = 0; w < qualities.length; w++) {
+        const quality = qualities[w][id];
         if (quality === Quality.None) break;
         matched++;
         if (quality === Quality.Typo) typos++;
-        if (quality === Quality.Exact) exact++;
-        attribute = Math.min(attribute, match.attribute[id]);
+        else if (quality === Quality.Exact) exact++;
+        if (attributes[w][id] < attribute) attribute = attributes[w][id];
       }
       if (matched < fewestWords) continue;
-      result.ids.push(id);
+      ids[count++] = id;
       result.words[id] = matched;
       result.typos[id] = typos;
       result.exact[id] = exact;
       result.attribute[id] = attribute;
     }
+    result.ids = ids.subarray(0, count);
     return result;
   }
 
