@@ -1,5 +1,5 @@
 import { inArray, eq, sql } from 'drizzle-orm';
-import type { Index } from 'meilisearch';
+import type { Index, MultiSearchParams, MultiSearchQuery } from 'meilisearch';
 import { CATEGORY_LABELS, ATTRIBUTE_FIELDS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
 import type { DbOrTx } from '../db/client.ts';
 import { makers, partMedia, parts, partSupplierSkus, rangeInverters, ranges, stockLevels } from '../db/schema/index.ts';
@@ -138,6 +138,12 @@ export function createPartsIndex(search: SearchClient) {
 
   return {
     index,
+
+    /** Several searches of the parts index in one round trip (Meilisearch's multi-search), results in order. */
+    async searchMany(queries: Omit<MultiSearchQuery, 'indexUid'>[]) {
+      const { results } = await search.client.multiSearch<MultiSearchParams, PartDocument>({ queries: queries.map((q) => ({ ...q, indexUid: PARTS_INDEX })) });
+      return results;
+    },
 
     async configure() {
       await check(search.client.createIndex(PARTS_INDEX, { primaryKey: 'id' })).catch((e) => {

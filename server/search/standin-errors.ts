@@ -13,6 +13,11 @@ export class MeiliError extends Error {
     super(message);
   }
 
+  /** The same error raised by query `i` of a multi-search, whose message names the query. */
+  inQuery(i: number): MeiliError {
+    return new MeiliError(this.status, this.code, `Inside \`.queries[${i}]\`: ${this.message}`, this.type);
+  }
+
   toBody(): MeiliErrorBody {
     return {
       message: this.message,

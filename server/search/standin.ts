@@ -14,7 +14,7 @@ import { indexNotFound, MeiliError, snakeCase, type MeiliErrorBody } from './sta
 import { parseFilter } from './standin-filter.ts';
 import { StandinIndex, type DocumentsRequest, type SearchRequest } from './standin-index.ts';
 import { defaultSettings, parseSettings, settingNameFromPath, type SettingsPatch } from './standin-settings.ts';
-import { isPlainObject, type Json } from './standin-text.ts';
+import { isPlainObject, type Json, type TextMatches } from './standin-text.ts';
 
 type TaskType =
   | 'indexCreation'
@@ -391,6 +391,34 @@ function registerSearchRoutes(app: express.Express, indexes: IndexRegistry): voi
     const request: SearchRequest = validate(searchSchema, params, 'invalid_search');
     return index.search(request);
   };
+  // Meilisearch API reference: POST /multi-search runs several searches in one request and
+  // answers their results in order; an error in one query fails the request, naming the query.
+  app.post('/multi-search', (req, res) => {
+    const body: unknown = req.body;
+    if (!isPlainObject(body) || !Array.isArray(body.queries)) {
+      throw new MeiliError(400, 'missing_queries', 'Missing field `queries`');
+    }
+    if (body.federation !== undefined && body.federation !== null) {
+      throw new MeiliError(400, 'invalid_multi_search_federation', 'The search stand-in does not support federated multi-search.');
+    }
+    const memos = new Map<StandinIndex, Map<string, TextMatches | null>>();
+    const results = body.queries.map((query: unknown, i: number) => {
+      try {
+        if (!isPlainObject(query) || typeof query.indexUid !== 'string') {
+          throw new MeiliError(400, 'missing_index_uid', 'Missing field `indexUid`');
+        }
+        const { indexUid, ...params } = query;
+        const index = indexes.get(indexUid);
+        const memo = memos.get(index) ?? new Map<string, TextMatches | null>();
+        memos.set(index, memo);
+        return { indexUid, ...index.search(validate(searchSchema, params, 'invalid_search'), memo) };
+      } catch (error) {
+        if (error instanceof MeiliError) throw error.inQuery(i);
+        throw error;
+      }
+    });
+    res.json({ results });
+  });
   app.post('/indexes/:uid/search', (req, res) => {
     res.json(search(req.params.uid, req.body));
   });

@@ -37,6 +37,32 @@ function filterFor(chosen: [Facet, string | undefined][], skip?: Facet) {
 
 const sortFor = (query: PartListQuery) => (query.sort !== 'relevance' ? [`${SORTS[query.sort]}:${query.dir}`] : query.q ? undefined : ['sku:asc']);
 
+/**
+ * The engine searches behind one catalogue page, sent as one multi-search: the page with every
+ * facet's counts, then for each chosen facet the same search without its own filter, so that a
+ * chosen facet still shows the counts of its other values.
+ */
+export function catalogueSearches(query: PartListQuery) {
+  const chosen = chosenFacets(query);
+  const page = {
+    q: query.q,
+    filter: filterFor(chosen),
+    facets: [...FACETS] as string[],
+    sort: sortFor(query),
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+    attributesToRetrieve: [...SUMMARY_FIELDS] as string[],
+  };
+  const active = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
+  return [page, ...active.map((f) => ({ q: query.q, filter: filterFor(chosen, f), facets: [f] as string[], limit: 0 }))];
+}
+
+const PART_BY_CODE = `
+  (select sku from parts where sku = $1)
+  union all (select sku from parts where $2::text is not null and gtin14 = $2::text)
+  union all (select p.sku from part_supplier_skus s join parts p on p.id = s.part_id where $3::boolean and upper(s.supplier_sku) = $1)
+  limit 1`;
+
 /** `onPartsChanged` lets caches built from part data (the planner's ranges) drop what they hold. */
 export function createCatalogueService({ db, partsIndex, onPartsChanged = () => {} }: { db: Db; partsIndex: PartsIndex; onPartsChanged?: () => void }) {
   async function findPart(sku: string) {
@@ -54,12 +80,9 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     if (c.length < 2 || c.length > 64 || /\s/.test(c)) return null;
     const suppliersToo = can(actor.role, 'suppliers.view');
     const gtin14 = /^\d{8,14}$/.test(c) ? normalizeGtin14(c) : null;
-    // Three indexed look-ups; the first that answers wins.
-    const { rows } = await db.execute<{ sku: string }>(sql`
-      (select sku from parts where sku = ${c})
-      union all (select sku from parts where ${gtin14 ?? null}::text is not null and gtin14 = ${gtin14 ?? null}::text)
-      union all (select p.sku from part_supplier_skus s join parts p on p.id = s.part_id where ${suppliersToo} and upper(s.supplier_sku) = ${c})
-      limit 1`);
+    // Three indexed look-ups; the first that answers wins. A named (prepared) statement, since a
+    // scanner sends this on every code it reads.
+    const { rows } = await db.$client.query<{ sku: string }>({ name: 'part-by-code', text: PART_BY_CODE, values: [c, gtin14, suppliersToo] });
     return rows[0]?.sku ?? null;
   }
 
@@ -158,29 +181,20 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
 
     async list(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
-      const chosen = chosenFacets(query);
-      const filterWithout = (skip?: Facet) => filterFor(chosen, skip);
-      const sort = sortFor(query);
-      // A chosen facet still shows the counts of its other values: those come from a search without its own filter.
-      const active = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
-      const [result, exactSku, ...others] = await Promise.all([
-        partsIndex.index.search(query.q, {
-          filter: filterWithout(),
-          facets: [...FACETS],
-          sort,
-          limit: query.pageSize,
-          offset: (query.page - 1) * query.pageSize,
-          attributesToRetrieve: [...SUMMARY_FIELDS],
-        }),
+      const searches = catalogueSearches(query);
+      const [[result, ...others], exactSku] = await Promise.all([
+        partsIndex.searchMany(searches),
         // While typing, plain words (no digit or separator) cannot be a code: skip the look-up.
         /[\d./-]/.test(query.q) ? exactMatch(actor, query.q) : Promise.resolve(null),
-        ...active.map((f) => partsIndex.index.search(query.q, { filter: filterWithout(f), facets: [f], limit: 0 })),
       ]);
-      const dist = { ...(result.facetDistribution ?? {}) };
-      active.forEach((f, i) => (dist[f] = others[i]!.facetDistribution?.[f] ?? {}));
+      const dist = { ...(result!.facetDistribution ?? {}) };
+      others.forEach((other, i) => {
+        const facet = searches[i + 1]!.facets[0]!;
+        dist[facet] = other.facetDistribution?.[facet] ?? {};
+      });
       return {
-        hits: result.hits as PartDocument[],
-        total: result.estimatedTotalHits ?? result.hits.length,
+        hits: result!.hits,
+        total: result!.estimatedTotalHits ?? result!.hits.length,
         facets: {
           category: dist.category ?? {},
           maker: dist.maker ?? {},

@@ -396,6 +396,60 @@ describe('search', () => {
     expect(result.facetDistribution).toEqual({ maker: { acme: 1, globex: 1 } });
   });
 
+  it('sorts documents lacking the sort attribute last, ascending and descending', async () => {
+    const index = await partsIndex();
+    await succeeded(index.addDocuments([{ id: 'p6', name: 'Loose cable', category: 'cable', maker: 'acme', inStock: true, tags: [] } as unknown as Part]));
+    // Meilisearch docs, "Sort search results": documents without the sorted field come last in both directions.
+    expect(ids((await index.search('', { sort: ['price:asc'] })).hits)).toEqual(['p5', 'p1', 'p4', 'p2', 'p3', 'p6']);
+    expect(ids((await index.search('', { sort: ['price:desc'] })).hits)).toEqual(['p3', 'p2', 'p4', 'p1', 'p5', 'p6']);
+  });
+
+  it('keeps filters and facet counts current after every write', async () => {
+    const index = await partsIndex();
+    const inStock = async () => (await index.search('', { filter: 'inStock = true', facets: ['maker'] })).facetDistribution?.maker;
+    // Meilisearch docs, "Faceted search": counts follow the documents; a repeated search must see each write.
+    expect(await inStock()).toEqual({ acme: 2, globex: 1, initech: 1 });
+    await succeeded(index.updateDocuments([{ id: 'p2', inStock: true }]));
+    expect(await inStock()).toEqual({ acme: 2, globex: 2, initech: 1 });
+    await succeeded(index.deleteDocument('p1'));
+    expect(await inStock()).toEqual({ acme: 1, globex: 2, initech: 1 });
+    await succeeded(index.addDocuments([{ ...PARTS[3], id: 'p7', maker: 'hooli' }]));
+    expect(await inStock()).toEqual({ acme: 1, globex: 2, hooli: 1, initech: 1 });
+  });
+
+  it('runs a multi-search: several queries in one request, results in order', async () => {
+    const index = await partsIndex();
+    const other = await partsIndex();
+    await succeeded(other.deleteDocuments(['p1', 'p2']));
+    const queries = [
+      { indexUid: index.uid, q: 'cable', filter: 'inStock = true', facets: ['maker'] },
+      { indexUid: index.uid, q: 'cable', facets: ['inStock'], limit: 0 },
+      { indexUid: other.uid, q: 'cable' },
+    ];
+    const { results } = await client.multiSearch({ queries });
+    // Meilisearch API reference, "Multi-search": one result per query, in order, each naming its index.
+    expect(results.map((r) => r.indexUid)).toEqual([index.uid, index.uid, other.uid]);
+    // Each result is what the same search alone answers.
+    for (const [i, { indexUid, ...params }] of queries.entries()) {
+      const alone = await client.index(indexUid).search(params.q, params);
+      expect({ ...results[i], processingTimeMs: 0 }).toEqual({ ...alone, indexUid, processingTimeMs: 0 });
+    }
+    expect(ids(results[0]!.hits as Part[])).toEqual(['p1', 'p5']);
+    expect(results[1]!.facetDistribution).toEqual({ inStock: { false: 1, true: 2 } });
+    expect(ids(results[2]!.hits as Part[])).toEqual(['p5']);
+  });
+
+  it('fails a multi-search whose query is invalid, naming the query', async () => {
+    const index = await partsIndex();
+    const error = await apiError(client.multiSearch({ queries: [{ indexUid: index.uid, q: 'cable' }, { indexUid: index.uid, filter: 'name = cable' }] }));
+    // Meilisearch API reference, "Multi-search": the error is the failing query's, prefixed with its position.
+    expect(error.response.status).toBe(400);
+    expect(error.cause?.code).toBe('invalid_search_filter');
+    expect(error.cause?.message).toMatch(/^Inside `\.queries\[1\]`: /);
+    const missing = await apiError(client.multiSearch({ queries: [{ indexUid: 'nowhere', q: 'x' }] }));
+    expect(missing.cause?.code).toBe('index_not_found');
+  });
+
   it('answers an unknown index with index_not_found', async () => {
     // Meilisearch errors reference: index_not_found, HTTP 404, type invalid_request.
     const error = await apiError(client.index('nowhere').search('cable'));
