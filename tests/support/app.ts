@@ -75,6 +75,7 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
       searchStopped = true;
     },
     async close() {
+      await search.close();
       if (!searchStopped) await standin.close();
       await drop();
     },
