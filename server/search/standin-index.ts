@@ -242,7 +242,7 @@ export class StandinIndex {
   #facets = new Map<string, FacetField>();
   #sortRanks = new Map<string, SortRanks>();
   /** Evaluated search filters by their JSON, until the next write: most searches repeat a few. */
-  #filterResults = new Map<string, DocBits>();
+  #filterResults = new Map<string, DocBits | null>();
 
   constructor(
     readonly uid: string,
@@ -396,14 +396,23 @@ export class StandinIndex {
     return response;
   }
 
-  /** The documents a search filter selects (null for no filter); callers must not write to it. */
+  /**
+   * The documents a search filter selects, or null when it keeps every document (no filter, or
+   * one such as `archived = false` that nothing fails): then there is nothing to filter out.
+   * Callers must not write to the result.
+   */
   #searchFilter(input: unknown): DocBits | null {
     const key = JSON.stringify(input ?? null);
     const cached = this.#filterResults.get(key);
-    if (cached) return cached;
+    if (cached !== undefined) return cached;
     const filter = parseFilter(input, 'invalid_search_filter');
-    if (!filter) return null;
-    const bits = evaluateFilter(filter, this.#filterSource('invalid_search_filter'));
+    let bits: DocBits | null = null;
+    if (filter) {
+      bits = evaluateFilter(filter, this.#filterSource('invalid_search_filter'));
+      let selected = 0;
+      for (let id = 0; id < bits.length; id++) selected += bits[id];
+      if (selected === this.documentCount) bits = null;
+    }
     if (this.#filterResults.size >= FILTER_RESULTS_KEPT) this.#filterResults.delete(this.#filterResults.keys().next().value!);
     this.#filterResults.set(key, bits);
     return bits;
