@@ -238,6 +238,7 @@ console.log(`search API, 16 clients             p50 ${s.api.p50} / p95 ${s.api.p
 console.log(`  (one request at a time in-process: p50 ${s.inProcessEngineOneAtATime.p50} / p95 ${s.inProcessEngineOneAtATime.p95} ms; the engine behind the stand-in's HTTP, 16 clients: p50 ${s.engineOverHttp16Clients.p50} / p95 ${s.engineOverHttp16Clients.p95} ms, ${s.engineOverHttp16Clients.perSecond} req/s)`);
 console.log(`stack plan incl. availability      p95 ${p.latency4Clients.p95} ms at 4 clients; ${p.saturation16Clients.perSecond} req/s at 16 (p95 ${p.saturation16Clients.p95} ms)     —     ${mark(p.met)}`);
 console.log(`client bundle, first route         ${b.firstRouteGzipKb} KB gzip             —                             ${mark(b.met)}`);
-console.log(`server memory, big catalogue       ${m.apiServerRssMb} MB RSS per worker (${WORKERS} workers + primary: ${m.apiTotalRssMb} MB; search stand-in ${m.searchStandinRssMb} MB)   ${mark(m.met)}`);
+const processes = WORKERS > 1 ? `${WORKERS} workers + primary: ${m.apiTotalRssMb} MB` : 'one process';
+console.log(`server memory, big catalogue       ${m.apiServerRssMb} MB RSS per API process (${processes}; search stand-in ${m.searchStandinRssMb} MB)   ${mark(m.met)}`);
 console.log('not yet measured (features not built): concurrent reservations, price-list import, label PDFs');
 console.log('written to bench-results/bench.json');
