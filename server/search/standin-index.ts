@@ -6,6 +6,7 @@
 // pay for it; value maps and sort ranks are built on first use and dropped when invalidated.
 
 import { MeiliError, notFilterable } from './standin-errors.ts';
+import { scratch } from './standin-scratch.ts';
 import { bitsFromIds, FacetField, type DocBits } from './standin-facets.ts';
 import { evaluateFilter, parseFilter, type FilterNode, type FilterSource } from './standin-filter.ts';
 import {
@@ -143,10 +144,10 @@ function parseSortCriterion(expression: string, code: string): SortCriterion {
 
 /** The ids whose bit is set, in their order. */
 function keepSelected(ids: Int32Array, bits: DocBits): Int32Array {
-  const kept = new Int32Array(ids.length);
+  const kept = scratch.int32('kept-ids', ids.length);
   let count = 0;
   for (let i = 0; i < ids.length; i++) if (bits[ids[i]]) kept[count++] = ids[i];
-  return kept.subarray(0, count);
+  return kept.slice(0, count);
 }
 
 function copyPath(source: Json, target: Json, [head, ...rest]: string[]): void {
@@ -178,7 +179,7 @@ function firstInOrder(ids: Int32Array, count: number, keys: RankKey[]): Int32Arr
   if (count <= 0) return new Int32Array(0);
   let compare: Compare<number>;
   if (keys.reduce((product, key) => product * (key.top + 2), 1) <= Number.MAX_SAFE_INTEGER) {
-    const score = new Float64Array(ids.length);
+    const score = scratch.float64('rank-scores', ids.length).fill(0, 0, ids.length);
     for (const key of keys) {
       const span = key.top + 2;
       for (let i = 0; i < ids.length; i++) score[i] = score[i] * span + rankOf(key, ids[i]);
@@ -524,10 +525,10 @@ export class StandinIndex {
   }
 
   #selectedIds(bits: DocBits): Int32Array {
-    const ids = new Int32Array(bits.length);
+    const ids = scratch.int32('selected-ids', bits.length);
     let count = 0;
     for (let id = 0; id < bits.length; id++) if (bits[id]) ids[count++] = id;
-    return ids.subarray(0, count);
+    return ids.slice(0, count);
   }
 
   #filterSource(code: string): FilterSource {

@@ -6,6 +6,7 @@
 
 import SearchableMap from 'minisearch/SearchableMap';
 import type { TypoTolerance } from './standin-settings.ts';
+import { scratch } from './standin-scratch.ts';
 
 export type Json = Record<string, unknown>;
 export type Leaf = string | number | boolean;
@@ -150,9 +151,10 @@ class WordMatch {
   readonly quality: Uint8Array;
   readonly attribute: Uint16Array;
 
-  constructor(size: number) {
-    this.quality = new Uint8Array(size);
-    this.attribute = new Uint16Array(size);
+  /** `position` is the word's place in the query: each word has its own work arrays. */
+  constructor(size: number, position: number) {
+    this.quality = scratch.zeroedUint8(`word-quality-${position}`, size);
+    this.attribute = scratch.uint16(`word-attribute-${position}`, size);
   }
 
   mark(postings: Postings | undefined, quality: Quality): void {
@@ -205,10 +207,10 @@ export class TextIndex {
     if (words.length === 0) return null;
     const matches = words.map((word, i) => {
       const prefix = options.prefixSearch && i === words.length - 1;
-      return this.#matchWord(word, size, prefix, typoBudget(word, options.typoTolerance));
+      return this.#matchWord(word, i, size, prefix, typoBudget(word, options.typoTolerance));
     });
     const fewestWords = options.matchingStrategy === 'all' ? words.length : 1;
-    const ids = new Int32Array(size);
+    const ids = scratch.int32('text-ids', size);
     const result: TextMatches = {
       ids,
       words: new Uint8Array(size),
@@ -242,13 +244,13 @@ export class TextIndex {
       result.exact[id] = exact;
       result.attribute[id] = attribute;
     }
-    result.ids = ids.subarray(0, count);
+    result.ids = ids.slice(0, count);
     return result;
   }
 
   // Only the query's final word is matched as a prefix, as in Meilisearch.
-  #matchWord(word: string, size: number, prefix: boolean, budget: number): WordMatch {
-    const match = new WordMatch(size);
+  #matchWord(word: string, position: number, size: number, prefix: boolean, budget: number): WordMatch {
+    const match = new WordMatch(size, position);
     match.mark(this.#terms.get(word), Quality.Exact);
     if (prefix) {
       for (const [term, postings] of this.#terms.atPrefix(word)) {

@@ -417,6 +417,20 @@ describe('search', () => {
     expect(await inStock()).toEqual({ acme: 1, globex: 2, hooli: 1, initech: 1 });
   });
 
+  it('answers a search the same after searches of a larger index (work arrays are reused)', async () => {
+    const index = await partsIndex();
+    const ask = () => index.search('cable modle', { filter: 'inStock = true', facets: ['maker', 'tags'], sort: ['price:desc'] });
+    const before = await ask();
+    const big = client.index(`big_${++indexCounter}`);
+    const many = Array.from({ length: 3000 }, (_, i) => ({ id: `b${i}`, name: `cable module relay ${i}`, category: 'cable', maker: 'acme', price: i, inStock: i % 2 === 0, tags: ['power'] }));
+    await succeeded(big.updateSettings(PART_SETTINGS));
+    await succeeded(big.addDocuments(many, { primaryKey: 'id' }));
+    // 1,500 match; Meilisearch docs, "Pagination": estimatedTotalHits stops at maxTotalHits (1,000 by default).
+    expect((await big.search('cable modle', { filter: 'inStock = true', limit: 3 })).estimatedTotalHits).toBe(1000);
+    // Same question, same index, same documents: the answer must not depend on what ran before.
+    expect({ ...(await ask()), processingTimeMs: 0 }).toEqual({ ...before, processingTimeMs: 0 });
+  });
+
   it('runs a multi-search: several queries in one request, results in order', async () => {
     const index = await partsIndex();
     const other = await partsIndex();
