@@ -506,8 +506,9 @@ export class StandinIndex {
 
   #textMatches(q: string, request: SearchRequest, memo: Map<string, TextMatches | null>): TextMatches | null {
     const options = this.#textOptions(request);
-    const key = `${options.matchingStrategy}\u0000${q}`;
-    if (!memo.has(key)) memo.set(key, this.#ensureTextIndex().search(q, this.#docs.length, options));
+    const key = `${this.uid}\u0000${options.matchingStrategy}\u0000${q}`;
+    // Each distinct query of a multi-search gets its own work arrays (slot), as all stay in use.
+    if (!memo.has(key)) memo.set(key, this.#ensureTextIndex().search(q, this.#docs.length, options, memo.size));
     return memo.get(key)!;
   }
 

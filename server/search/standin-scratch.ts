@@ -22,6 +22,7 @@ export const scratch = {
   int32: (purpose: string, size: number) => take(purpose, size, (n) => new Int32Array(n)),
   float64: (purpose: string, size: number) => take(purpose, size, (n) => new Float64Array(n)),
   uint16: (purpose: string, size: number) => take(purpose, size, (n) => new Uint16Array(n)),
+  uint8: (purpose: string, size: number) => take(purpose, size, (n) => new Uint8Array(n)),
   /** Zeroed over [0, size). */
   zeroedUint8: (purpose: string, size: number) => take(purpose, size, (n) => new Uint8Array(n)).fill(0, 0, size),
 };

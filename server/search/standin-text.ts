@@ -199,9 +199,10 @@ export class TextIndex {
    * Ranking signals of the documents matching the query, or null when the query has no
    * searchable words (then every document matches, as for a placeholder search). `size` is the
    * number of internal id slots. With the `last` strategy, documents matching only the first
-   * words are included too, as Meilisearch drops query words from the end.
+   * words are included too, as Meilisearch drops query words from the end. The signal arrays
+   * are work arrays of `slot`: they stay valid until the next search in the same slot.
    */
-  search(query: string, size: number, options: TextSearchOptions): TextMatches | null {
+  search(query: string, size: number, options: TextSearchOptions, slot = 0): TextMatches | null {
     // Meilisearch only considers the first ten words of a query.
     const words = this.#termsOf(query).slice(0, MAX_QUERY_WORDS);
     if (words.length === 0) return null;
@@ -213,10 +214,11 @@ export class TextIndex {
     const ids = scratch.int32('text-ids', size);
     const result: TextMatches = {
       ids,
-      words: new Uint8Array(size),
-      typos: new Uint8Array(size),
-      exact: new Uint8Array(size),
-      attribute: new Uint16Array(size),
+      // Signals are written for every matched id and only read for those: no zeroing needed.
+      words: scratch.uint8(`text-words-${slot}`, size),
+      typos: scratch.uint8(`text-typos-${slot}`, size),
+      exact: scratch.uint8(`text-exact-${slot}`, size),
+      attribute: scratch.uint16(`text-attribute-${slot}`, size),
       attributes: this.#fields.length,
     };
     const qualities = matches.map((match) => match.quality);

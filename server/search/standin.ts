@@ -401,7 +401,7 @@ function registerSearchRoutes(app: express.Express, indexes: IndexRegistry): voi
     if (body.federation !== undefined && body.federation !== null) {
       throw new MeiliError(400, 'invalid_multi_search_federation', 'The search stand-in does not support federated multi-search.');
     }
-    const memos = new Map<StandinIndex, Map<string, TextMatches | null>>();
+    const memo = new Map<string, TextMatches | null>();
     const results = body.queries.map((query: unknown, i: number) => {
       try {
         if (!isPlainObject(query) || typeof query.indexUid !== 'string') {
@@ -409,8 +409,6 @@ function registerSearchRoutes(app: express.Express, indexes: IndexRegistry): voi
         }
         const { indexUid, ...params } = query;
         const index = indexes.get(indexUid);
-        const memo = memos.get(index) ?? new Map<string, TextMatches | null>();
-        memos.set(index, memo);
         return { indexUid, ...index.search(validate(searchSchema, params, 'invalid_search'), memo) };
       } catch (error) {
         if (error instanceof MeiliError) throw error.inQuery(i);
