@@ -441,6 +441,8 @@ export function createSearchStandin(options: { apiKey?: string } = {}): express.
   const tasks = new TaskLog();
 
   app.disable('x-powered-by');
+  // Meilisearch sends no ETag; hashing every search answer would only cost time.
+  app.disable('etag');
   if (options.apiKey) app.use(requireApiKey(options.apiKey));
   // Meilisearch's default payload limit; non-strict because single-setting routes take bare JSON
   // values such as `"sku"` or `null`.
