@@ -62,7 +62,7 @@ export class FacetField {
   #numberIndex: { values: Float64Array; ids: Int32Array } | null = null;
   #sortedKeys: string[] | null = null;
   /** Each document's values as positions in #keys(), for counting over the matched documents. */
-  #valuesByDoc: { start: Int32Array; keys: Int32Array } | null = null;
+  #valuesByDoc: { start: Int32Array; keys: Int32Array; single: Int32Array | null } | null = null;
 
   constructor(readonly attribute: string) {}
 
@@ -121,12 +121,17 @@ export class FacetField {
    */
   distribution(matched: ArrayLike<number>, maxValues: number, order: 'alpha' | 'count'): Record<string, number> {
     const keys = this.#keys();
-    const { start, keys: valueKeys } = this.#documentValues();
-    const counts = new Int32Array(keys.length);
-    for (let i = 0; i < matched.length; i++) {
-      const id = matched[i];
-      if (id + 1 >= start.length) continue;
-      for (let j = start[id]; j < start[id + 1]; j++) counts[valueKeys[j]]++;
+    const { start, keys: valueKeys, single } = this.#documentValues();
+    // One slot past the values counts the documents without one.
+    const counts = new Int32Array(keys.length + 1);
+    if (single) {
+      for (let i = 0; i < matched.length; i++) if (matched[i] < single.length) counts[single[matched[i]]]++;
+    } else {
+      for (let i = 0; i < matched.length; i++) {
+        const id = matched[i];
+        if (id + 1 >= start.length) continue;
+        for (let j = start[id]; j < start[id + 1]; j++) counts[valueKeys[j]]++;
+      }
     }
     const counted: [key: string, count: number][] = [];
     for (let k = 0; k < keys.length; k++) {
@@ -161,8 +166,12 @@ export class FacetField {
     return this.#sortedKeys;
   }
 
-  /** Compressed rows: document id → its value positions, rebuilt after a change. */
-  #documentValues(): { start: Int32Array; keys: Int32Array } {
+  /**
+   * Compressed rows: document id → its value positions, rebuilt after a change. When no document
+   * holds more than one value (most attributes), `single` gives each document's one position
+   * directly (keys.length for none), which counts in a single step.
+   */
+  #documentValues(): { start: Int32Array; keys: Int32Array; single: Int32Array | null } {
     if (!this.#valuesByDoc) {
       const keys = this.#keys();
       let size = 0;
@@ -179,7 +188,14 @@ export class FacetField {
       keys.forEach((key, position) => {
         for (const id of this.#idsByKey.get(key)!) valueKeys[fill[id]++] = position;
       });
-      this.#valuesByDoc = { start, keys: valueKeys };
+      let single: Int32Array | null = null;
+      let most = 0;
+      for (let id = 0; id < size; id++) most = Math.max(most, start[id + 1] - start[id]);
+      if (most <= 1) {
+        single = new Int32Array(size).fill(keys.length);
+        for (let id = 0; id < size; id++) if (start[id + 1] > start[id]) single[id] = valueKeys[start[id]];
+      }
+      this.#valuesByDoc = { start, keys: valueKeys, single };
     }
     return this.#valuesByDoc;
   }

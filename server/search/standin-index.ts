@@ -57,7 +57,7 @@ type Compare<T> = (a: T, b: T) => number;
  * One ranking rule as a number per document: `values[id]` lies in [0, top], better first (or
  * last when `descending`); a negative value means the document lacks it and ranks after all.
  */
-type RankKey = { values: ArrayLike<number>; top: number; descending: boolean };
+type RankKey = { values: Uint8Array | Uint16Array | Int32Array; top: number; descending: boolean };
 type SortRanks = { ranks: Int32Array; distinct: number };
 
 const DOCUMENT_ID = /^[A-Za-z0-9_-]{1,511}$/;
@@ -130,6 +130,26 @@ function rankOf(key: RankKey, id: number): number {
   return key.descending ? key.top - value : value;
 }
 
+/**
+ * Appends one rank key to each document's packed score. One loop per array type: a loop that
+ * reads byte, 16-bit and 32-bit arrays in turn runs several times slower than three that each
+ * read one kind.
+ */
+function addToScores(score: Float64Array, ids: Int32Array, key: RankKey): void {
+  const span = key.top + 2;
+  const { values, top, descending } = key;
+  if (values instanceof Int32Array) {
+    for (let i = 0; i < ids.length; i++) {
+      const value = values[ids[i]];
+      score[i] = score[i] * span + (value < 0 ? top + 1 : descending ? top - value : value);
+    }
+  } else if (values instanceof Uint16Array) {
+    for (let i = 0; i < ids.length; i++) score[i] = score[i] * span + (descending ? top - values[ids[i]] : values[ids[i]]);
+  } else {
+    for (let i = 0; i < ids.length; i++) score[i] = score[i] * span + (descending ? top - values[ids[i]] : values[ids[i]]);
+  }
+}
+
 function parseSortCriterion(expression: string, code: string): SortCriterion {
   const match = /^(.+):(asc|desc)$/.exec(expression);
   if (!match || match[1].startsWith('_geo')) {
@@ -180,10 +200,7 @@ function firstInOrder(ids: Int32Array, count: number, keys: RankKey[]): Int32Arr
   let compare: Compare<number>;
   if (keys.reduce((product, key) => product * (key.top + 2), 1) <= Number.MAX_SAFE_INTEGER) {
     const score = scratch.float64('rank-scores', ids.length).fill(0, 0, ids.length);
-    for (const key of keys) {
-      const span = key.top + 2;
-      for (let i = 0; i < ids.length; i++) score[i] = score[i] * span + rankOf(key, ids[i]);
-    }
+    for (const key of keys) addToScores(score, ids, key);
     compare = (a, b) => score[a] - score[b] || ids[a] - ids[b];
   } else {
     compare = (a, b) => {

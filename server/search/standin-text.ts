@@ -223,28 +223,43 @@ export class TextIndex {
     };
     const qualities = matches.map((match) => match.quality);
     const attributes = matches.map((match) => match.attribute);
+    const { words: wordsOf, typos: typosOf, exact: exactOf, attribute: attributeOf } = result;
     const first = qualities[0];
     let count = 0;
-    for (let id = 0; id < size; id++) {
-      if (first[id] === Quality.None) continue;
-      let matched = 0;
-      let typos = 0;
-      let exact = 0;
-      let attribute = attributes[0][id];
-      for (let w = 0; w < qualities.length; w++) {
-        const quality = qualities[w][id];
-        if (quality === Quality.None) break;
-        matched++;
-        if (quality === Quality.Typo) typos++;
-        else if (quality === Quality.Exact) exact++;
-        if (attributes[w][id] < attribute) attribute = attributes[w][id];
+    if (qualities.length === 1) {
+      // One word (most keystrokes): its match quality is the whole story.
+      const firstAttribute = attributes[0];
+      for (let id = 0; id < size; id++) {
+        const quality = first[id];
+        if (quality === Quality.None) continue;
+        ids[count++] = id;
+        wordsOf[id] = 1;
+        typosOf[id] = quality === Quality.Typo ? 1 : 0;
+        exactOf[id] = quality === Quality.Exact ? 1 : 0;
+        attributeOf[id] = firstAttribute[id];
       }
-      if (matched < fewestWords) continue;
-      ids[count++] = id;
-      result.words[id] = matched;
-      result.typos[id] = typos;
-      result.exact[id] = exact;
-      result.attribute[id] = attribute;
+    } else {
+      for (let id = 0; id < size; id++) {
+        if (first[id] === Quality.None) continue;
+        let matched = 0;
+        let typos = 0;
+        let exact = 0;
+        let attribute = attributes[0][id];
+        for (let w = 0; w < qualities.length; w++) {
+          const quality = qualities[w][id];
+          if (quality === Quality.None) break;
+          matched++;
+          if (quality === Quality.Typo) typos++;
+          else if (quality === Quality.Exact) exact++;
+          if (attributes[w][id] < attribute) attribute = attributes[w][id];
+        }
+        if (matched < fewestWords) continue;
+        ids[count++] = id;
+        wordsOf[id] = matched;
+        typosOf[id] = typos;
+        exactOf[id] = exact;
+        attributeOf[id] = attribute;
+      }
     }
     result.ids = ids.slice(0, count);
     return result;
