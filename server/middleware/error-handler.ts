@@ -26,12 +26,21 @@ function toAppError(err: unknown): AppError | null {
   if (e?.type === 'encoding.unsupported' || e?.type === 'charset.unsupported')
     return new AppError(415, 'unsupported_encoding', 'Send the body as UTF-8 JSON.');
   if (e?.status && e.status >= 400 && e.status < 500) return new AppError(e.status, 'bad_request', 'The request could not be read.');
-  const name = (err as Error)?.name ?? '';
-  if (name === 'MeilisearchRequestError' || name === 'MeilisearchRequestTimeOutError' || name === 'MeilisearchTaskTimeOutError')
-    return new AppError(503, 'search_unavailable', 'Search is not reachable right now. Try again in a moment.');
+  if (searchUnreachable(err)) return new AppError(503, 'search_unavailable', 'Search is not reachable right now. Try again in a moment.');
   if (databaseDown(err) || (err as { body?: { code?: string } })?.body?.code === 'FAILED_TO_GET_SESSION')
     return new AppError(503, 'database_unavailable', 'The database is not reachable right now. Try again in a moment.');
   return null;
+}
+
+/**
+ * The search server could not be reached or did not answer in time. The meilisearch client wraps
+ * everything its transport throws in MeilisearchRequestError, so an error *answer* from the server
+ * (MeilisearchApiError as the cause: a bad filter, a missing index) is not an outage.
+ */
+function searchUnreachable(err: unknown) {
+  const e = err as { name?: string; cause?: { name?: string } } | undefined;
+  if (e?.name === 'MeilisearchRequestTimeOutError' || e?.name === 'MeilisearchTaskTimeOutError') return true;
+  return e?.name === 'MeilisearchRequestError' && e.cause?.name !== 'MeilisearchApiError';
 }
 
 /** Connection refused or reset, or PostgreSQL shutting down or starting, anywhere in the cause chain. */

@@ -335,6 +335,24 @@ describe('when search is down', () => {
   });
 });
 
+describe('when the search server answers with an error', () => {
+  it('is an internal error with a request id, not "search unavailable", and leaks nothing', async () => {
+    const broken = await createTestApp();
+    try {
+      const agent = await broken.signIn('sales');
+      // The engine is up but has lost the index: it answers 404 index_not_found (Meilisearch errors reference).
+      await broken.services.partsIndex.index.delete();
+      const res = await agent.get('/api/parts').query({ q: 'cable' });
+      expect(res.status).toBe(500);
+      expect(res.body.error.code).toBe('internal');
+      expect(res.body.requestId).toEqual(expect.any(String));
+      expect(res.text).not.toMatch(/index_not_found|at .*\.ts/);
+    } finally {
+      await broken.close();
+    }
+  });
+});
+
 describe('CSV export', () => {
   it('neutralises formula injection in text cells and leaves numbers alone', async () => {
     const agent = await t.signIn('purchasing');

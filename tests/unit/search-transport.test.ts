@@ -12,6 +12,8 @@ import { createSearchTransport } from '../../server/search/transport.ts';
 let standin: RunningSearchStandin;
 let silent: Server;
 let silentUrl: string;
+let trickle: Server;
+let trickleUrl: string;
 
 beforeAll(async () => {
   standin = await startSearchStandin({ port: 0, apiKey: 'transport-key' });
@@ -19,16 +21,34 @@ beforeAll(async () => {
   silent = createServer(() => {}).listen(0, '127.0.0.1');
   await once(silent, 'listening');
   silentUrl = `http://127.0.0.1:${(silent.address() as AddressInfo).port}`;
+  // Answers at once, then sends its body a byte every 100 ms for 3 s.
+  trickle = createServer((_req, res) => {
+    res.writeHead(200, { 'content-type': 'application/json' });
+    const body = '{"status":"available"}'.padEnd(30, ' ');
+    let sent = 0;
+    const tick = setInterval(() => {
+      if (res.destroyed) return clearInterval(tick);
+      res.write(body[sent++] ?? '');
+      if (sent >= body.length) {
+        clearInterval(tick);
+        res.end();
+      }
+    }, 100);
+  }).listen(0, '127.0.0.1');
+  await once(trickle, 'listening');
+  trickleUrl = `http://127.0.0.1:${(trickle.address() as AddressInfo).port}`;
 });
 
 afterAll(async () => {
   await standin.close();
-  silent.closeAllConnections();
-  silent.close();
+  for (const server of [silent, trickle]) {
+    server.closeAllConnections();
+    server.close();
+  }
 });
 
-function clientFor(host: string, options: { apiKey?: string; timeoutMs?: number } = {}) {
-  const transport = createSearchTransport(host, { timeoutMs: options.timeoutMs ?? 2_000 });
+function clientFor(host: string, options: { apiKey?: string; timeoutMs?: number; connections?: number } = {}) {
+  const transport = createSearchTransport(host, { timeoutMs: options.timeoutMs ?? 2_000, connections: options.connections });
   return { client: new Meilisearch({ host, apiKey: options.apiKey, httpClient: transport.httpClient }), close: transport.close };
 }
 
@@ -82,5 +102,25 @@ describe('search transport', () => {
     expect(error).toBeInstanceOf(MeilisearchRequestError);
     expect(error.cause).toBeInstanceOf(MeilisearchRequestTimeOutError);
     await close();
+  });
+
+  it('counts the whole request against the time-out: a slow body, and waiting for a connection', async () => {
+    const slow = clientFor(trickleUrl, { timeoutMs: 300 });
+    const started = Date.now();
+    expect((await failure(slow.client.health())) as MeilisearchRequestError).toHaveProperty('cause', expect.any(MeilisearchRequestTimeOutError));
+    // The body would take 3 s; the deadline is 300 ms (common practice: a deadline bounds the whole call).
+    expect(Date.now() - started).toBeLessThan(1_500);
+    await slow.close();
+
+    // One connection, three requests to a server that never answers: each gives up on its own
+    // deadline instead of waiting for the ones before it to give up first.
+    const queued = clientFor(silentUrl, { timeoutMs: 300, connections: 1 });
+    const queuedStart = Date.now();
+    const outcomes = await Promise.all([1, 2, 3].map(() => failure(queued.client.health()).then((e) => ({ e, ms: Date.now() - queuedStart }))));
+    for (const { e, ms } of outcomes) {
+      expect((e as MeilisearchRequestError).cause).toBeInstanceOf(MeilisearchRequestTimeOutError);
+      expect(ms).toBeLessThan(1_500);
+    }
+    await queued.close();
   });
 });
