@@ -63,6 +63,7 @@ type SortRanks = { ranks: Int32Array; distinct: number };
 const DOCUMENT_ID = /^[A-Za-z0-9_-]{1,511}$/;
 const DEFAULT_LIMIT = 20;
 const FILTER_RESULTS_KEPT = 64;
+const TEXT_SLOTS = 4;
 
 function now(): string {
   return new Date().toISOString();
@@ -524,8 +525,10 @@ export class StandinIndex {
   #textMatches(q: string, request: SearchRequest, memo: Map<string, TextMatches | null>): TextMatches | null {
     const options = this.#textOptions(request);
     const key = `${this.uid}\u0000${options.matchingStrategy}\u0000${q}`;
-    // Each distinct query of a multi-search gets its own work arrays (slot), as all stay in use.
-    if (!memo.has(key)) memo.set(key, this.#ensureTextIndex().search(q, this.#docs.length, options, memo.size));
+    // Each distinct query of a multi-search gets its own work arrays (slot), as all stay in use;
+    // past a few, its own arrays, so a long multi-search does not keep memory for good.
+    const slot = memo.size < TEXT_SLOTS ? memo.size : null;
+    if (!memo.has(key)) memo.set(key, this.#ensureTextIndex().search(q, this.#docs.length, options, slot));
     return memo.get(key)!;
   }
 

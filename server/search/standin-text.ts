@@ -200,9 +200,10 @@ export class TextIndex {
    * searchable words (then every document matches, as for a placeholder search). `size` is the
    * number of internal id slots. With the `last` strategy, documents matching only the first
    * words are included too, as Meilisearch drops query words from the end. The signal arrays
-   * are work arrays of `slot`: they stay valid until the next search in the same slot.
+   * are work arrays of `slot`: they stay valid until the next search in the same slot (`null`:
+   * arrays of its own).
    */
-  search(query: string, size: number, options: TextSearchOptions, slot = 0): TextMatches | null {
+  search(query: string, size: number, options: TextSearchOptions, slot: number | null = 0): TextMatches | null {
     // Meilisearch only considers the first ten words of a query.
     const words = this.#termsOf(query).slice(0, MAX_QUERY_WORDS);
     if (words.length === 0) return null;
@@ -215,10 +216,10 @@ export class TextIndex {
     const result: TextMatches = {
       ids,
       // Signals are written for every matched id and only read for those: no zeroing needed.
-      words: scratch.uint8(`text-words-${slot}`, size),
-      typos: scratch.uint8(`text-typos-${slot}`, size),
-      exact: scratch.uint8(`text-exact-${slot}`, size),
-      attribute: scratch.uint16(`text-attribute-${slot}`, size),
+      words: slot === null ? new Uint8Array(size) : scratch.uint8(`text-words-${slot}`, size),
+      typos: slot === null ? new Uint8Array(size) : scratch.uint8(`text-typos-${slot}`, size),
+      exact: slot === null ? new Uint8Array(size) : scratch.uint8(`text-exact-${slot}`, size),
+      attribute: slot === null ? new Uint16Array(size) : scratch.uint16(`text-attribute-${slot}`, size),
       attributes: this.#fields.length,
     };
     const qualities = matches.map((match) => match.quality);

@@ -67,12 +67,12 @@ const documentsSchema = pageSchema.extend({
 });
 
 /** Validates request parameters, reporting the first bad one as `<prefix>_<parameter>`. */
-function validate<T>(schema: z.ZodType<T>, value: unknown, codePrefix: string): T {
+function validate<T>(schema: z.ZodType<T>, value: unknown, codePrefix: string, at = ''): T {
   const parsed = schema.safeParse(value ?? {});
   if (parsed.success) return parsed.data;
   const issue = parsed.error.issues[0];
   const parameter = String(issue.path[0] ?? 'request');
-  const message = `Invalid value at \`.${parameter}\`: ${issue.message}`;
+  const message = `Invalid value at \`${at}.${parameter}\`: ${issue.message}`;
   throw new MeiliError(400, `${codePrefix}_${snakeCase(parameter)}`, message);
 }
 
@@ -392,24 +392,30 @@ function registerSearchRoutes(app: express.Express, indexes: IndexRegistry): voi
     return index.search(request);
   };
   // Meilisearch API reference: POST /multi-search runs several searches in one request and
-  // answers their results in order; an error in one query fails the request, naming the query.
+  // answers their results in order. The whole body is checked first, naming the bad field by its
+  // path; an error while running a query fails the request, prefixed with the query's position.
   app.post('/multi-search', (req, res) => {
     const body: unknown = req.body;
     if (!isPlainObject(body) || !Array.isArray(body.queries)) {
-      throw new MeiliError(400, 'missing_queries', 'Missing field `queries`');
+      throw new MeiliError(400, 'bad_request', 'Missing field `queries`');
     }
     if (body.federation !== undefined && body.federation !== null) {
       throw new MeiliError(400, 'invalid_multi_search_federation', 'The search stand-in does not support federated multi-search.');
     }
+    const searches = body.queries.map((query: unknown, i: number) => {
+      if (!isPlainObject(query) || query.indexUid === undefined) {
+        throw new MeiliError(400, 'bad_request', `Missing field \`indexUid\` inside \`.queries[${i}]\``);
+      }
+      const { indexUid, ...params } = query;
+      if (typeof indexUid !== 'string' || !INDEX_UID.test(indexUid)) {
+        throw new MeiliError(400, 'invalid_index_uid', `Invalid value at \`.queries[${i}].indexUid\`: \`${String(indexUid)}\` is not a valid index uid.`);
+      }
+      return { indexUid, request: validate(searchSchema, params, 'invalid_search', `.queries[${i}]`) };
+    });
     const memo = new Map<string, TextMatches | null>();
-    const results = body.queries.map((query: unknown, i: number) => {
+    const results = searches.map(({ indexUid, request }: { indexUid: string; request: SearchRequest }, i: number) => {
       try {
-        if (!isPlainObject(query) || typeof query.indexUid !== 'string') {
-          throw new MeiliError(400, 'missing_index_uid', 'Missing field `indexUid`');
-        }
-        const { indexUid, ...params } = query;
-        const index = indexes.get(indexUid);
-        return { indexUid, ...index.search(validate(searchSchema, params, 'invalid_search'), memo) };
+        return { indexUid, ...indexes.get(indexUid).search(request, memo) };
       } catch (error) {
         if (error instanceof MeiliError) throw error.inQuery(i);
         throw error;

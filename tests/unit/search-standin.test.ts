@@ -453,15 +453,34 @@ describe('search', () => {
     expect(results[2]!.facetDistribution).toEqual({ inStock: { false: 1, true: 2 } });
   });
 
+  it('answers a multi-search of many different queries as the same searches one by one', async () => {
+    const index = await partsIndex();
+    const words = ['cable', 'module', 'power', 'relay', 'usb', 'hdmi', 'ties', 'cabel'];
+    const { results } = await client.multiSearch({ queries: words.map((q) => ({ indexUid: index.uid, q, sort: ['price:asc'] })) });
+    for (const [i, q] of words.entries()) {
+      // Each result is what the same search alone answers, however many queries share the request.
+      expect(ids(results[i]!.hits as Part[])).toEqual(ids((await index.search(q, { sort: ['price:asc'] })).hits));
+    }
+    expect(ids(results[7]!.hits as Part[])).toEqual(ids(results[0]!.hits as Part[]));
+  });
+
   it('fails a multi-search whose query is invalid, naming the query', async () => {
     const index = await partsIndex();
     const error = await apiError(client.multiSearch({ queries: [{ indexUid: index.uid, q: 'cable' }, { indexUid: index.uid, filter: 'name = cable' }] }));
-    // Meilisearch API reference, "Multi-search": the error is the failing query's, prefixed with its position.
+    // Meilisearch API reference, "Multi-search": an error while running a query is that query's, prefixed with its position.
     expect(error.response.status).toBe(400);
     expect(error.cause?.code).toBe('invalid_search_filter');
     expect(error.cause?.message).toMatch(/^Inside `\.queries\[1\]`: /);
     const missing = await apiError(client.multiSearch({ queries: [{ indexUid: 'nowhere', q: 'x' }] }));
     expect(missing.cause?.code).toBe('index_not_found');
+
+    // Meilisearch's own tests (multi-search snapshots): the body is checked before any query runs,
+    // and a bad field is named by its path inside the body.
+    const post = (body: unknown) => fetch(`${standin.url}/multi-search`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) }).then(async (r) => ({ status: r.status, ...(await r.json()) }));
+    expect(await post({})).toMatchObject({ status: 400, code: 'bad_request', message: 'Missing field `queries`' });
+    expect(await post({ queries: [{ indexUid: index.uid }, { q: 'x' }] })).toMatchObject({ status: 400, code: 'bad_request', message: 'Missing field `indexUid` inside `.queries[1]`' });
+    expect(await post({ queries: [{ indexUid: 'bad uid!' }] })).toMatchObject({ status: 400, code: 'invalid_index_uid', message: expect.stringMatching(/^Invalid value at `\.queries\[0\]\.indexUid`/) });
+    expect(await post({ queries: [{ indexUid: 'nowhere' }, { indexUid: index.uid, limit: 'x' }] })).toMatchObject({ status: 400, code: 'invalid_search_limit', message: expect.stringMatching(/^Invalid value at `\.queries\[1\]\.limit`/) });
   });
 
   it('answers an unknown index with index_not_found', async () => {
