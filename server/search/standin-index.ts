@@ -18,6 +18,7 @@ import {
   type SettingsPatch,
 } from './standin-settings.ts';
 import {
+  ALL_ATTRIBUTES,
   isPlainObject,
   MAX_QUERY_WORDS,
   normalizeText,
@@ -40,6 +41,7 @@ export type SearchRequest = {
   facets?: string[] | null;
   attributesToRetrieve?: string[] | null;
   matchingStrategy?: 'last' | 'all' | 'frequency';
+  attributesToSearchOn?: string[] | null;
 };
 
 export type DocumentsRequest = {
@@ -524,7 +526,7 @@ export class StandinIndex {
 
   #textMatches(q: string, request: SearchRequest, memo: Map<string, TextMatches | null>): TextMatches | null {
     const options = this.#textOptions(request);
-    const key = `${this.uid}\u0000${options.matchingStrategy}\u0000${q}`;
+    const key = `${this.uid}\u0000${options.matchingStrategy}\u0000${options.searchOn}\u0000${q}`;
     // Each distinct query of a multi-search gets its own work arrays (slot), as all stay in use;
     // past a few, its own arrays, so a long multi-search does not keep memory for good.
     const slot = memo.size < TEXT_SLOTS ? memo.size : null;
@@ -537,7 +539,25 @@ export class StandinIndex {
       typoTolerance: this.#settings.typoTolerance,
       matchingStrategy: request.matchingStrategy ?? 'last',
       prefixSearch: this.#settings.prefixSearch !== 'disabled',
+      searchOn: this.#searchOn(request.attributesToSearchOn),
     };
+  }
+
+  /** Meilisearch's `attributesToSearchOn`: a subset of the searchable attributes to match in. */
+  #searchOn(attributes: string[] | null | undefined): number {
+    if (!attributes || attributes.includes('*')) return ALL_ATTRIBUTES;
+    const searchable = this.#settings.searchableAttributes;
+    if (!searchable.includes('*')) {
+      const unknown = attributes.find((attribute) => !searchable.includes(attribute));
+      if (unknown !== undefined) {
+        throw new MeiliError(
+          400,
+          'invalid_search_attributes_to_search_on',
+          `Attribute \`${unknown}\` is not searchable. Available searchable attributes are: \`${searchable.join(', ')}\`.`,
+        );
+      }
+    }
+    return this.#ensureTextIndex().attributeSet(attributes);
   }
 
   /** A view, not a copy: callers must not write to it. */

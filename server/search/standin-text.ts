@@ -30,47 +30,59 @@ export type TextSearchOptions = {
   typoTolerance: TypoTolerance;
   matchingStrategy: 'last' | 'all' | 'frequency';
   prefixSearch: boolean;
+  /** The searchable attributes to match in, as a set from TextIndex.attributeSet (all by default). */
+  searchOn?: number;
 };
 
+/** Every searchable attribute. */
+export const ALL_ATTRIBUTES = 0xffffffff;
+
 /**
- * The documents holding a term, each with the best (lowest) rank of an attribute containing it.
- * Writes go to a map; searches read a packed copy made on first read after a change, since
- * walking typed arrays is many times faster than walking a map of 50,000 entries.
+ * The documents holding a term, each with the set of searchable attributes it appears in (bit
+ * `rank` for the attribute at that position; positions past 31 share bit 31). Writes go to a map;
+ * searches read a packed copy made on first read after a change, since walking typed arrays is
+ * many times faster than walking a map of 50,000 entries.
  */
 class Postings {
-  readonly #ranks = new Map<number, number>();
-  #packed: { ids: Int32Array; ranks: Uint16Array } | null = null;
+  readonly #attributes = new Map<number, number>();
+  #packed: { ids: Int32Array; attributes: Uint32Array } | null = null;
 
   get size(): number {
-    return this.#ranks.size;
+    return this.#attributes.size;
   }
 
   set(id: number, rank: number): void {
-    const best = this.#ranks.get(id);
-    if (best !== undefined && best <= rank) return;
-    this.#ranks.set(id, rank);
+    const held = this.#attributes.get(id) ?? 0;
+    const next = (held | (1 << Math.min(rank, 31))) >>> 0;
+    if (next === held) return;
+    this.#attributes.set(id, next);
     this.#packed = null;
   }
 
   delete(id: number): boolean {
-    if (!this.#ranks.delete(id)) return false;
+    if (!this.#attributes.delete(id)) return false;
     this.#packed = null;
     return true;
   }
 
-  packed(): { ids: Int32Array; ranks: Uint16Array } {
+  packed(): { ids: Int32Array; attributes: Uint32Array } {
     if (!this.#packed) {
-      const ids = new Int32Array(this.#ranks.size);
-      const ranks = new Uint16Array(this.#ranks.size);
+      const ids = new Int32Array(this.#attributes.size);
+      const attributes = new Uint32Array(this.#attributes.size);
       let i = 0;
-      for (const [id, rank] of this.#ranks) {
+      for (const [id, held] of this.#attributes) {
         ids[i] = id;
-        ranks[i++] = rank;
+        attributes[i++] = held;
       }
-      this.#packed = { ids, ranks };
+      this.#packed = { ids, attributes };
     }
     return this.#packed;
   }
+}
+
+/** Position of the lowest set bit: the best attribute in a set. */
+function lowestBit(set: number): number {
+  return 31 - Math.clz32(set & -set);
 }
 
 // How a document matched a query word; a better match wins when several do.
@@ -157,12 +169,16 @@ class WordMatch {
     this.attribute = scratch.uint16(`word-attribute-${position}`, size);
   }
 
-  mark(postings: Postings | undefined, quality: Quality): void {
+  /** Marks the term's documents, counting only its occurrences in the `searchOn` attributes. */
+  mark(postings: Postings | undefined, quality: Quality, searchOn: number): void {
     if (!postings) return;
-    const { ids, ranks } = postings.packed();
+    const { ids, attributes } = postings.packed();
     for (let i = 0; i < ids.length; i++) {
+      const held = attributes[i] & searchOn;
+      if (held === 0) continue;
       const id = ids[i];
-      if (this.quality[id] === Quality.None || ranks[i] < this.attribute[id]) this.attribute[id] = ranks[i];
+      const rank = lowestBit(held);
+      if (this.quality[id] === Quality.None || rank < this.attribute[id]) this.attribute[id] = rank;
       if (quality > this.quality[id]) this.quality[id] = quality;
     }
   }
@@ -176,6 +192,15 @@ export class TextIndex {
   constructor(fields: string[], stopWords: string[]) {
     this.#fields = fields;
     this.#stopWords = new Set(stopWords.map(normalizeText));
+  }
+
+  /** The set of the named attributes' positions, for `searchOn` (names must be among the fields). */
+  attributeSet(names: string[]): number {
+    let set = 0;
+    this.#fields.forEach((field, rank) => {
+      if (names.includes(field)) set |= 1 << Math.min(rank, 31);
+    });
+    return set >>> 0;
   }
 
   add(id: number, doc: Json): void {
@@ -209,7 +234,7 @@ export class TextIndex {
     if (words.length === 0) return null;
     const matches = words.map((word, i) => {
       const prefix = options.prefixSearch && i === words.length - 1;
-      return this.#matchWord(word, i, size, prefix, typoBudget(word, options.typoTolerance));
+      return this.#matchWord(word, i, size, prefix, typoBudget(word, options.typoTolerance), options.searchOn ?? ALL_ATTRIBUTES);
     });
     const fewestWords = options.matchingStrategy === 'all' ? words.length : 1;
     const ids = scratch.int32('text-ids', size);
@@ -267,23 +292,23 @@ export class TextIndex {
   }
 
   // Only the query's final word is matched as a prefix, as in Meilisearch.
-  #matchWord(word: string, position: number, size: number, prefix: boolean, budget: number): WordMatch {
+  #matchWord(word: string, position: number, size: number, prefix: boolean, budget: number, searchOn: number): WordMatch {
     const match = new WordMatch(size, position);
-    match.mark(this.#terms.get(word), Quality.Exact);
+    match.mark(this.#terms.get(word), Quality.Exact, searchOn);
     if (prefix) {
       for (const [term, postings] of this.#terms.atPrefix(word)) {
-        if (term !== word) match.mark(postings, Quality.Prefix);
+        if (term !== word) match.mark(postings, Quality.Prefix, searchOn);
       }
     }
     if (budget === 0) return match;
     // Meilisearch counts a typo on the first letter as two.
     const typos = (term: string, edits: number) => edits + (term[0] === word[0] ? 0 : 1);
     for (const [term, [postings, edits]] of this.#terms.fuzzyGet(word, budget)) {
-      if (edits > 0 && typos(term, edits) <= budget) match.mark(postings, Quality.Typo);
+      if (edits > 0 && typos(term, edits) <= budget) match.mark(postings, Quality.Typo, searchOn);
     }
     for (const swapped of adjacentSwaps(word)) {
       for (const [term, [postings, edits]] of this.#terms.fuzzyGet(swapped, budget - 1)) {
-        if (typos(term, edits + 1) <= budget) match.mark(postings, Quality.Typo);
+        if (typos(term, edits + 1) <= budget) match.mark(postings, Quality.Typo, searchOn);
       }
     }
     return match;

@@ -55,6 +55,7 @@ const searchSchema = z.object({
   facets: stringList,
   attributesToRetrieve: stringList,
   matchingStrategy: z.enum(['last', 'all', 'frequency']).optional(),
+  attributesToSearchOn: stringList,
 });
 
 const pageSchema = z.object({ offset: count.optional(), limit: count.optional() });
@@ -428,7 +429,7 @@ function registerSearchRoutes(app: express.Express, indexes: IndexRegistry): voi
   });
   app.get('/indexes/:uid/search', (req, res) => {
     const numeric = ['offset', 'limit', 'page', 'hitsPerPage'];
-    res.json(search(req.params.uid, queryObject(req, numeric, ['sort', 'facets', 'attributesToRetrieve'])));
+    res.json(search(req.params.uid, queryObject(req, numeric, ['sort', 'facets', 'attributesToRetrieve', 'attributesToSearchOn'])));
   });
 }
 

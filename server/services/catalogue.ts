@@ -1,7 +1,7 @@
 import { and, asc, count, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
 import { makers, partMedia, parts, partSupplierSkus, ranges, stockLevels, suppliers, warehouses } from '../db/schema/index.ts';
-import { rangeMembership, type PartsIndex, type PartDocument } from '../search/parts-index.ts';
+import { PARTS_INDEX_SETTINGS, rangeMembership, type PartsIndex, type PartDocument } from '../search/parts-index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { can } from '@shared/roles.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
@@ -42,10 +42,13 @@ const sortFor = (query: PartListQuery) => (query.sort !== 'relevance' ? [`${SORT
  * facet's counts, then for each chosen facet the same search without its own filter, so that a
  * chosen facet still shows the counts of its other values.
  */
-export function catalogueSearches(query: PartListQuery) {
+export function catalogueSearches(query: PartListQuery, { supplierData }: { supplierData: boolean }) {
   const chosen = chosenFacets(query);
+  // Roles that may not see supplier data cannot find parts by a supplier's SKU either.
+  const attributesToSearchOn = supplierData ? undefined : SEARCHABLE_WITHOUT_SUPPLIERS;
   const page = {
     q: query.q,
+    attributesToSearchOn,
     filter: filterFor(chosen),
     facets: [...FACETS] as string[],
     sort: sortFor(query),
@@ -54,8 +57,10 @@ export function catalogueSearches(query: PartListQuery) {
     attributesToRetrieve: [...SUMMARY_FIELDS] as string[],
   };
   const active = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
-  return [page, ...active.map((f) => ({ q: query.q, filter: filterFor(chosen, f), facets: [f] as string[], limit: 0 }))];
+  return [page, ...active.map((f) => ({ q: query.q, attributesToSearchOn, filter: filterFor(chosen, f), facets: [f] as string[], limit: 0 }))];
 }
+
+const SEARCHABLE_WITHOUT_SUPPLIERS = PARTS_INDEX_SETTINGS.searchableAttributes.filter((a) => a !== 'supplierSkus');
 
 const PART_BY_CODE = `
   (select sku from parts where sku = $1)
@@ -181,7 +186,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
 
     async list(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
-      const searches = catalogueSearches(query);
+      const searches = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') });
       const [[result, ...others], exactSku] = await Promise.all([
         partsIndex.searchMany(searches),
         // While typing, plain words (no digit or separator) cannot be a code: skip the look-up.
@@ -210,9 +215,9 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     async exportRows(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
       const rows: PartDocument[] = [];
-      const filter = filterFor(chosenFacets(query));
+      const [{ q, facets: _facets, ...page }] = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') });
       for (let offset = 0; offset < 20_000; offset += 1000) {
-        const { hits } = await partsIndex.index.search(query.q, { filter, sort: sortFor(query), limit: 1000, offset, attributesToRetrieve: [...SUMMARY_FIELDS] });
+        const { hits } = await partsIndex.index.search(q, { ...page, limit: 1000, offset });
         rows.push(...(hits as PartDocument[]));
         if (hits.length < 1000) break;
       }

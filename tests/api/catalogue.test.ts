@@ -311,10 +311,30 @@ describe('identity rules', () => {
     expect(res.body.error.details.fields[0].path).toBe('sku');
   });
 
-  it('does not reveal supplier SKUs to installers through the scan jump', async () => {
+  it('does not reveal supplier SKUs to installers: no scan jump, no search hit, no CSV row', async () => {
+    const code = withKestrelSku.supplierSkus![0]!.sku;
     const installer = await t.signIn('installer');
-    const res = await installer.get('/api/parts').query({ q: withKestrelSku.supplierSkus![0]!.sku }).expect(200);
+    const res = await installer.get('/api/parts').query({ q: code }).expect(200);
     expect(res.body.exactSku).toBeNull();
+    expect(res.body.data.map((p: { sku: string }) => p.sku)).not.toContain(withKestrelSku.sku);
+    const csv = await installer.get('/api/parts/export.csv').query({ q: code }).expect(200);
+    expect(csv.text).not.toContain(withKestrelSku.sku);
+
+    // Staff who may see supplier data find the part by the same code, at the top.
+    const sales = await t.signIn('sales');
+    const found = await sales.get('/api/parts').query({ q: code }).expect(200);
+    expect(found.body.data[0].sku).toBe(withKestrelSku.sku);
+  });
+
+  it('sends no cost in list results or CSV exports to installers or the warehouse', async () => {
+    for (const role of ['installer', 'warehouse'] as const) {
+      const agent = await t.signIn(role);
+      const list = await agent.get('/api/parts').query({ pageSize: 100 }).expect(200);
+      expect(list.body.data.length).toBeGreaterThan(0);
+      expect(JSON.stringify(list.body)).not.toMatch(/cost/i);
+      const csv = await agent.get('/api/parts/export.csv').expect(200);
+      expect(csv.text.split('\n')[0]).not.toMatch(/cost/i);
+    }
   });
 });
 

@@ -483,6 +483,22 @@ describe('search', () => {
     expect(await post({ queries: [{ indexUid: 'nowhere' }, { indexUid: index.uid, limit: 'x' }] })).toMatchObject({ status: 400, code: 'invalid_search_limit', message: expect.stringMatching(/^Invalid value at `\.queries\[1\]\.limit`/) });
   });
 
+  it('matches only in the attributes named by attributesToSearchOn', async () => {
+    const index = await partsIndex();
+    // "usb" is in p1's name and tags, "video" only in p2's tags, "cable" in p5's name and tags.
+    expect(ids((await index.search('usb')).hits)).toEqual(['p1']);
+    // Meilisearch API reference, "attributesToSearchOn": the query is matched in those attributes only.
+    expect(ids((await index.search('usb', { attributesToSearchOn: ['name'] })).hits)).toEqual(['p1']);
+    expect(ids((await index.search('usb', { attributesToSearchOn: ['category'] })).hits)).toEqual([]);
+    expect(ids((await index.search('video', { attributesToSearchOn: ['name', 'category'] })).hits)).toEqual([]);
+    expect(ids((await index.search('video', { attributesToSearchOn: ['tags'] })).hits)).toEqual(['p2']);
+    // The best attribute is chosen among those searched: "cable" ranks p5 by tags only when name is left out.
+    expect(ids((await index.search('cable', { attributesToSearchOn: ['tags'] })).hits)).toEqual(['p5']);
+    // Meilisearch errors reference: invalid_search_attributes_to_search_on for an attribute that is not searchable.
+    const error = await apiError(index.search('usb', { attributesToSearchOn: ['maker'] }));
+    expect(error.cause?.code).toBe('invalid_search_attributes_to_search_on');
+  });
+
   it('answers an unknown index with index_not_found', async () => {
     // Meilisearch errors reference: index_not_found, HTTP 404, type invalid_request.
     const error = await apiError(client.index('nowhere').search('cable'));
