@@ -35,7 +35,7 @@ export interface PartDocument {
 export const PARTS_INDEX_SETTINGS = {
   searchableAttributes: ['sku', 'name', 'gtin', 'supplierSkus', 'makerName', 'categoryLabel', 'ranges', 'attributeText', 'description'],
   filterableAttributes: ['category', 'maker', 'ranges', 'lifecycle', 'inStock', 'archived', 'sku', 'gtin', 'supplierSkus'],
-  sortableAttributes: ['sku', 'name', 'category', 'maker'],
+  sortableAttributes: ['sku', 'name', 'category', 'makerName'],
   // Totals and CSV exports page past Meilisearch's default cap of 1,000 hits.
   pagination: { maxTotalHits: 20_000 },
 };
@@ -171,8 +171,9 @@ export function createPartsIndex(search: SearchClient) {
       return this.sync(db);
     },
 
-    /** At start-up: an empty or missing index is rebuilt from the database. */
+    /** At start-up: settings brought up to date, and an empty or missing index rebuilt from the database. */
     async ensure(db: DbOrTx) {
+      await this.configure();
       const stats = await index.getStats().catch(() => null);
       if (stats && stats.numberOfDocuments > 0) return { rebuilt: false, documents: stats.numberOfDocuments };
       return { rebuilt: true, documents: await this.rebuild(db) };

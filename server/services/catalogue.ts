@@ -12,7 +12,8 @@ const FACETS = ['category', 'maker', 'ranges', 'lifecycle', 'inStock'] as const;
 type Facet = (typeof FACETS)[number];
 /** What a result row needs; long texts stay in the engine. */
 const SUMMARY_FIELDS = ['id', 'sku', 'name', 'category', 'maker', 'makerName', 'gtin', 'lifecycle', 'ranges', 'packSize', 'unit', 'listPriceCents', 'available', 'inStock', 'thumbnailId'] as const;
-const SORTS: Record<string, string> = { sku: 'sku', name: 'name', category: 'category', maker: 'maker' };
+// The maker column shows the maker's name, so it sorts by name (codes need not follow names).
+const SORTS: Record<string, string> = { sku: 'sku', name: 'name', category: 'category', maker: 'makerName' };
 
 /** A filter value quoted for the search engine's filter syntax. */
 const quote = (v: string) => `"${v.replace(/["\\]/g, '\\$&')}"`;

@@ -6,6 +6,7 @@ import { createTestApp, type TestApp } from '../support/app.ts';
 import { seedCatalogue } from '../../seed/catalogue.ts';
 import { parts as demoParts } from '../../seed/data/catalogue.ts';
 import type { PartInput } from '../../shared/contracts/parts.ts';
+import { makers } from '../../server/db/schema/index.ts';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -77,6 +78,25 @@ describe('GET /api/parts', () => {
     const res = await agent.get('/api/parts').query({ sort: 'sku', dir: 'desc', pageSize: 5 }).expect(200);
     const skus = res.body.data.map((p: { sku: string }) => p.sku);
     expect(skus).toEqual([...skus].sort().reverse());
+  });
+
+  it('sorts by maker as the column shows it: by the maker name, not the code', async () => {
+    // Its own catalogue: a maker whose code sorts first but whose name sorts last.
+    const own = await createTestApp();
+    try {
+      await own.db.transaction((tx) => seedCatalogue(tx));
+      await own.db.insert(makers).values({ code: 'AAZ', name: 'Zephyr Works' });
+      await own.services.partsIndex.rebuild(own.db);
+      const purchasing = await own.signIn('purchasing');
+      await purchasing.post('/api/parts').send(newPart({ sku: 'AAZ-WB-1', makerCode: 'AAZ' })).expect(201);
+      const res = await purchasing.get('/api/parts').query({ sort: 'maker', dir: 'asc', pageSize: 200 }).expect(200);
+      const names = res.body.data.map((p: { makerName: string }) => p.makerName);
+      // Common practice: a column sorts by what it displays.
+      expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b)));
+      expect(res.body.data.at(-1).sku).toBe('AAZ-WB-1');
+    } finally {
+      await own.close();
+    }
   });
 
   it('jumps to the part for an exact SKU, GTIN (also as GTIN-14) or supplier SKU', async () => {
