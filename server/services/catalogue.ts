@@ -190,8 +190,8 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
       const searches = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') });
       const [[result, ...others], exactSku] = await Promise.all([
         partsIndex.searchMany(searches),
-        // While typing, plain words (no digit or separator) cannot be a code: skip the look-up.
-        /[\d./-]/.test(query.q) ? exactMatch(actor, query.q) : Promise.resolve(null),
+        // Any one-word query may be a scanned code, letters only included (exactMatch skips the rest).
+        exactMatch(actor, query.q),
       ]);
       const dist = { ...(result!.facetDistribution ?? {}) };
       others.forEach((other, i) => {

@@ -99,6 +99,13 @@ describe('GET /api/parts', () => {
     }
   });
 
+  it('jumps to a part whose code has letters only', async () => {
+    const purchasing = await t.signIn('purchasing');
+    await purchasing.post('/api/parts').send(newPart({ sku: 'LEVELKIT' })).expect(201);
+    const res = await purchasing.get('/api/parts').query({ q: 'levelkit' }).expect(200);
+    expect(res.body.exactSku).toBe('LEVELKIT');
+  });
+
   it('jumps to the part for an exact SKU, GTIN (also as GTIN-14) or supplier SKU', async () => {
     const agent = await t.signIn('warehouse');
     const p = withKestrelSku;
