@@ -972,7 +972,7 @@ add(
       dims: [450, 540, 180],
       ipRating: 'IP65',
       compliance: certified(INVERTER_STANDARDS, 'QRB-INV-5LV', '2023-04-17', 'IP65'),
-      attrs: { batteryMinV: 40, batteryMaxV: 60, maxChargeA: 100, maxDischargeA: 120, batteryInputs: 1, maxBatteryKwh: 40, ratedPowerKw: 5, phases: 1 },
+      attrs: { batteryMinV: 40, batteryMaxV: 60, maxChargeA: 100, maxDischargeA: 120, batteryInputs: 1, parallelStacks: 2, maxBatteryKwh: 40, ratedPowerKw: 5, phases: 1 },
     },
     { unit: 'each', markup: 1.3 },
   ),

@@ -37,9 +37,17 @@ function unitFrom(p: PartRow): PlannerUnit {
   };
 }
 
-export function inverterFrom(p: PartRow): PlannerInverter & { maxBatteryKwh: number | null } {
+export function inverterFrom(p: PartRow): PlannerInverter & { parallelStacks: number | null; maxBatteryKwh: number | null } {
   const a = p.attributes as Record<string, number | undefined>;
-  return { sku: p.sku, name: p.name, batteryMinV: a.batteryMinV ?? 0, batteryMaxV: a.batteryMaxV ?? 0, batteryInputs: a.batteryInputs ?? 1, maxBatteryKwh: a.maxBatteryKwh ?? null };
+  return {
+    sku: p.sku,
+    name: p.name,
+    batteryMinV: a.batteryMinV ?? 0,
+    batteryMaxV: a.batteryMaxV ?? 0,
+    batteryInputs: a.batteryInputs ?? 1,
+    parallelStacks: a.parallelStacks ?? null,
+    maxBatteryKwh: a.maxBatteryKwh ?? null,
+  };
 }
 
 const plannerPart = (p: PartRow): PlannerPart => ({ sku: p.sku, name: p.name, category: p.category, packSize: p.packSize, massKg: p.massKg });

@@ -210,6 +210,8 @@ export const InverterAttributesSchema = z
     maxChargeA: positive('Maximum charge current', 2000, 'A').optional(),
     maxDischargeA: positive('Maximum discharge current', 2000, 'A').optional(),
     batteryInputs: int('Battery inputs', 1, 8),
+    /** Stacks it accepts in parallel, where the maker allows more than one per input (through a combiner). */
+    parallelStacks: int('Parallel stacks supported', 1, 16).optional(),
     maxBatteryKwh: num('Maximum battery energy', 0.1, 2000, 'kWh').optional(),
     ratedPowerKw: positive('Rated power', 500, 'kW').optional(),
     phases: z.union([z.literal(1), z.literal(3)], { error: 'Phases must be 1 or 3.' }).optional(),
@@ -382,6 +384,7 @@ export const ATTRIBUTE_FIELDS: Record<CategoryCode, AttributeField[]> = {
     { key: 'batteryMinV', label: 'Battery window minimum', unit: 'V', kind: 'number', required: true },
     { key: 'batteryMaxV', label: 'Battery window maximum', unit: 'V', kind: 'number', required: true },
     { key: 'batteryInputs', label: 'Battery inputs', kind: 'integer', required: true },
+    { key: 'parallelStacks', label: 'Parallel stacks supported', kind: 'integer' },
     { key: 'maxChargeA', label: 'Maximum charge current', unit: 'A', kind: 'number' },
     { key: 'maxDischargeA', label: 'Maximum discharge current', unit: 'A', kind: 'number' },
     { key: 'maxBatteryKwh', label: 'Maximum battery energy', unit: 'kWh', kind: 'number' },

@@ -124,6 +124,7 @@ export const InverterOptionSchema = z.object({
   batteryMinV: z.number(),
   batteryMaxV: z.number(),
   batteryInputs: z.number(),
+  parallelStacks: z.number().nullable(),
   maxBatteryKwh: z.number().nullable(),
   lifecycle: z.string(),
 });

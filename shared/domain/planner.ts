@@ -84,9 +84,15 @@ export interface PlannerInverter {
   name: string;
   batteryMinV: number;
   batteryMaxV: number;
-  /** How many stacks it accepts in parallel. */
   batteryInputs: number;
+  /** Stacks it accepts in parallel when the maker states it; otherwise one per battery input. */
+  parallelStacks?: number | null;
   maxBatteryKwh?: number | null;
+}
+
+/** How many stacks an inverter takes in parallel: the maker's stated figure, else one per input. */
+export function stackLimit(inverter: Pick<PlannerInverter, 'batteryInputs' | 'parallelStacks'>): number {
+  return inverter.parallelStacks ?? inverter.batteryInputs;
 }
 
 export interface PlanRequest {
@@ -312,11 +318,12 @@ export function checkInverterFit(system: FitInput, inverter: PlannerInverter): I
       reason: `${fmt(system.usableKwh)} kWh usable is more than ${inverter.name} accepts (${fmt(inverter.maxBatteryKwh)} kWh).`,
     };
   }
-  if (system.stacks > inverter.batteryInputs) {
+  if (system.stacks > stackLimit(inverter)) {
+    const limit = inverter.parallelStacks != null ? `supports ${plural(inverter.parallelStacks, 'stack')} in parallel` : `takes ${plural(inverter.batteryInputs, 'battery input')}`;
     return {
       fits: false,
       code: 'too_many_stacks',
-      reason: `${inverter.name} takes ${plural(inverter.batteryInputs, 'battery input')}, so it cannot take ${plural(system.stacks, 'stack')} in parallel.`,
+      reason: `${inverter.name} ${limit}, so it cannot take ${plural(system.stacks, 'stack')} in parallel.`,
     };
   }
   return { fits: true };
@@ -659,6 +666,7 @@ function sizeForTarget(req: PlanRequest, target: number): PlanResult {
       smallestLayout: { modulesPerStack: first.modulesPerStack, stacks: first.stacks },
       inverterWindowV: [inverter.batteryMinV, inverter.batteryMaxV],
       batteryInputs: inverter.batteryInputs,
+      parallelStacks: stackLimit(inverter),
       maxBatteryKwh: inverter.maxBatteryKwh ?? null,
     },
   );

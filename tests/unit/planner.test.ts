@@ -294,6 +294,19 @@ describe('no fit', () => {
     expect(error.message).toContain('1 battery input');
   });
 
+  it('takes as many stacks as the maker states it parallels, beyond its battery inputs', () => {
+    // Common practice: low-voltage inverters often parallel several stacks on one DC input through a
+    // busbar or combiner, up to the count in the maker's manual.
+    const inverter = lowVoltageInverter({ batteryInputs: 1, parallelStacks: 2 });
+    const p = plan({ range: parallelRange(), targetUsableKwh: 40, inverter });
+    expect(p.stacks).toBe(2); // one stack tops out at 6 × 4.608 = 27.6 kWh, so 40 kWh needs two
+    expect(p.inverterFit).toEqual({ fits: true });
+    // And the other way: two inputs, but the maker allows only one stack.
+    const error = planError(planStack({ range: parallelRange(), parts, targetUsableKwh: 40, inverter: lowVoltageInverter({ batteryInputs: 2, parallelStacks: 1 }) }));
+    expect(error.details?.reason).toBe('too_many_stacks');
+    expect(error.message).toContain('supports 1 stack in parallel');
+  });
+
   it('returns an explicit count with the inverter misfit rather than an error', () => {
     const p = plan({ range: seriesRange(), modules: 4, inverter: lowVoltageInverter() });
     expect(p.inverterFit).toMatchObject({ fits: false, code: 'too_high' }); // 233.6 V > 60 V

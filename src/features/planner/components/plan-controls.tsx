@@ -6,8 +6,9 @@ import { formatNumber } from '@/lib/format.ts';
 import type { InverterOption } from '../api/get-inverters.ts';
 import type { PlanMode, PlannerParams } from '../hooks/use-planner-params.ts';
 
-export function inverterWindow(i: Pick<InverterOption, 'batteryMinV' | 'batteryMaxV' | 'batteryInputs' | 'maxBatteryKwh'>) {
-  const inputs = `${i.batteryInputs} input${i.batteryInputs === 1 ? '' : 's'}`;
+export function inverterWindow(i: Pick<InverterOption, 'batteryMinV' | 'batteryMaxV' | 'batteryInputs' | 'parallelStacks' | 'maxBatteryKwh'>) {
+  const stacks = i.parallelStacks != null ? ` (${i.parallelStacks} stack${i.parallelStacks === 1 ? '' : 's'} in parallel)` : '';
+  const inputs = `${i.batteryInputs} input${i.batteryInputs === 1 ? '' : 's'}${stacks}`;
   const kwh = i.maxBatteryKwh != null ? `, up to ${formatNumber(i.maxBatteryKwh)} kWh` : '';
   return `${formatNumber(i.batteryMinV)}–${formatNumber(i.batteryMaxV)} V, ${inputs}${kwh}`;
 }
