@@ -27,7 +27,12 @@ export async function generateBenchCatalogue(db: Db) {
         null,
         1 + (i % 4),
         round((0.1 + (i % 50) / 10.0)::numeric, 3),
-        jsonb_build_object('category', cats.c[1 + (i / 10) % 8]),
+        jsonb_build_object('category', cats.c[1 + (i / 10) % 8]) || (case cats.c[1 + (i / 10) % 8]
+          when 'cable-set' then jsonb_build_object('lengthM', 0.5 + (i % 20) / 2.0, 'crossSectionMm2', 25)
+          when 'wall-bracket' then jsonb_build_object('fixing', 'universal')
+          when 'feet' then jsonb_build_object('unitsPerSet', 4, 'heightMm', 60)
+          when 'comms-terminator' then jsonb_build_object('protocol', 'CAN')
+          else '{}'::jsonb end),
         100 + (i % 9000),
         200 + (i % 15000)
       from generate_series(1, ${BENCH_PARTS}) as i, m, cats`);

@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { type AnyPgColumn, bigint, check, index, integer, jsonb, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { CATEGORY_CODES } from '../../../shared/contracts/part-attributes.ts';
+import { attributeShapeCheck, gtinCheckDigit } from './part-checks.ts';
 
 const categoryList = sql.raw(CATEGORY_CODES.map((c) => `'${c}'`).join(', '));
 
@@ -63,6 +64,8 @@ export const parts = pgTable(
     check('parts_pack_size_positive', sql`${t.packSize} >= 1`),
     check('parts_mass_nonnegative', sql`${t.massKg} >= 0`),
     check('parts_gtin_digits', sql`${t.gtin} ~ '^([0-9]{8}|[0-9]{12}|[0-9]{13}|[0-9]{14})$'`),
+    check('parts_gtin_check_digit', sql`${t.gtin} is null or ${gtinCheckDigit(t.gtin)}`),
+    check('parts_attributes_shape', attributeShapeCheck(t.category, t.attributes)),
     check('parts_superseded_has_successor', sql`${t.lifecycle} <> 'superseded' or ${t.supersededById} is not null`),
     check('parts_money_nonnegative', sql`coalesce(${t.costCents}, 0) >= 0 and coalesce(${t.listPriceCents}, 0) >= 0`),
   ],
