@@ -5,6 +5,7 @@ import type { DbOrTx } from '../db/client.ts';
 import { makers, partMedia, parts, partSupplierSkus, rangeInverters, ranges, stockLevels } from '../db/schema/index.ts';
 import type { SearchClient } from './client.ts';
 import { AppError } from '../errors.ts';
+import { normalizeGtin14 } from '@shared/domain/gtin.ts';
 
 export const PARTS_INDEX = 'parts';
 
@@ -18,6 +19,8 @@ export interface PartDocument {
   maker: string;
   makerName: string;
   gtin: string | null;
+  /** The GTIN as GTIN-14, so a scanned code of any length finds it. */
+  gtin14: string | null;
   supplierSkus: string[];
   ranges: string[];
   lifecycle: string;
@@ -34,7 +37,7 @@ export interface PartDocument {
 
 export const PARTS_INDEX_SETTINGS = {
   searchableAttributes: ['sku', 'name', 'gtin', 'supplierSkus', 'makerName', 'categoryLabel', 'ranges', 'attributeText', 'description'],
-  filterableAttributes: ['category', 'maker', 'ranges', 'lifecycle', 'inStock', 'archived', 'sku', 'gtin', 'supplierSkus'],
+  filterableAttributes: ['category', 'maker', 'ranges', 'lifecycle', 'inStock', 'archived', 'sku', 'gtin', 'gtin14', 'supplierSkus'],
   sortableAttributes: ['sku', 'name', 'category', 'makerName'],
   // Totals and CSV exports page past Meilisearch's default cap of 1,000 hits.
   pagination: { maxTotalHits: 20_000 },
@@ -120,6 +123,7 @@ export function createPartsIndex(search: SearchClient) {
         maker: r.maker,
         makerName: r.makerName,
         gtin: r.gtin,
+        gtin14: r.gtin ? normalizeGtin14(r.gtin) : null,
         supplierSkus: supplierSkus.get(r.id) ?? [],
         ranges: rangeRows.get(r.id) ?? [],
         lifecycle: r.lifecycle,

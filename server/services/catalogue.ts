@@ -39,9 +39,26 @@ function filterFor(chosen: [Facet, string | undefined][], skip?: Facet) {
 const sortFor = (query: PartListQuery) => (query.sort !== 'relevance' ? [`${SORTS[query.sort]}:${query.dir}`] : query.q ? undefined : ['sku:asc']);
 
 /**
+ * A one-word query as a scanned code: the exact SKU, the GTIN (any length, compared as GTIN-14)
+ * or, for roles that may see supplier data, a supplier's SKU. Null when it cannot be one.
+ */
+function asCode(q: string, supplierData: boolean) {
+  const code = q.trim().toUpperCase();
+  if (code.length < 2 || code.length > 64 || /\s/.test(code)) return null;
+  const gtin14 = /^\d{8,14}$/.test(code) ? normalizeGtin14(code) : null;
+  return { code, gtin14, supplierData };
+}
+
+/** Of the parts a code matched, the one it names first: by SKU, then GTIN, then supplier SKU. */
+function partNamedBy({ code, gtin14 }: NonNullable<ReturnType<typeof asCode>>, hits: Pick<PartDocument, 'sku' | 'gtin14'>[]) {
+  return (hits.find((h) => h.sku === code) ?? hits.find((h) => gtin14 !== null && h.gtin14 === gtin14) ?? hits[0])?.sku ?? null;
+}
+
+/**
  * The engine searches behind one catalogue page, sent as one multi-search: the page with every
- * facet's counts, then for each chosen facet the same search without its own filter, so that a
- * chosen facet still shows the counts of its other values.
+ * facet's counts; then for each chosen facet the same search without its own filter, so that a
+ * chosen facet still shows the counts of its other values; then, for a one-word query, the parts
+ * it names exactly as a code (a scanner types the code, then Enter).
  */
 export function catalogueSearches(query: PartListQuery, { supplierData }: { supplierData: boolean }) {
   const chosen = chosenFacets(query);
@@ -57,8 +74,16 @@ export function catalogueSearches(query: PartListQuery, { supplierData }: { supp
     offset: (query.page - 1) * query.pageSize,
     attributesToRetrieve: [...SUMMARY_FIELDS] as string[],
   };
-  const active = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
-  return [page, ...active.map((f) => ({ q: query.q, attributesToSearchOn, filter: filterFor(chosen, f), facets: [f] as string[], limit: 0 }))];
+  const facetsAlone = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
+  const variants = facetsAlone.map((f) => ({ q: query.q, attributesToSearchOn, filter: filterFor(chosen, f), facets: [f] as string[], limit: 0 }));
+  const code = asCode(query.q, supplierData);
+  const byCode = code && {
+    q: '',
+    filter: [`sku = ${quote(code.code)}`, ...(code.gtin14 ? [`gtin14 = ${quote(code.gtin14)}`] : []), ...(supplierData ? [`supplierSkus = ${quote(code.code)}`] : [])].join(' OR '),
+    limit: 3,
+    attributesToRetrieve: ['sku', 'gtin14'],
+  };
+  return { page, searches: [page, ...variants, ...(byCode ? [byCode] : [])], facetsAlone, code };
 }
 
 const SEARCHABLE_WITHOUT_SUPPLIERS = PARTS_INDEX_SETTINGS.searchableAttributes.filter((a) => a !== 'supplierSkus');
@@ -77,18 +102,12 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     return p;
   }
 
-  /**
-   * A scanned or typed code: exact SKU, GTIN (any length, compared as GTIN-14) or, for roles that
-   * may see supplier data, a supplier SKU.
-   */
-  async function exactMatch(actor: Actor, code: string): Promise<string | null> {
-    const c = code.trim().toUpperCase();
-    if (c.length < 2 || c.length > 64 || /\s/.test(c)) return null;
-    const suppliersToo = can(actor.role, 'suppliers.view');
-    const gtin14 = /^\d{8,14}$/.test(c) ? normalizeGtin14(c) : null;
-    // Three indexed look-ups; the first that answers wins. A named (prepared) statement, since a
-    // scanner sends this on every code it reads.
-    const { rows } = await db.$client.query<{ sku: string }>({ name: 'part-by-code', text: PART_BY_CODE, values: [c, gtin14, suppliersToo] });
+  /** A scanned or typed code looked up in the database (the catalogue page asks the engine). */
+  async function exactMatch(actor: Actor, text: string): Promise<string | null> {
+    const code = asCode(text, can(actor.role, 'suppliers.view'));
+    if (!code) return null;
+    // Three indexed look-ups; the first that answers wins.
+    const { rows } = await db.$client.query<{ sku: string }>({ name: 'part-by-code', text: PART_BY_CODE, values: [code.code, code.gtin14, code.supplierData] });
     return rows[0]?.sku ?? null;
   }
 
@@ -187,17 +206,12 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
 
     async list(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
-      const searches = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') });
-      const [[result, ...others], exactSku] = await Promise.all([
-        partsIndex.searchMany(searches),
-        // Any one-word query may be a scanned code, letters only included (exactMatch skips the rest).
-        exactMatch(actor, query.q),
-      ]);
+      const { searches, facetsAlone, code } = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') });
+      const [result, ...rest] = await partsIndex.searchMany(searches);
+      const byCode = code ? rest.pop() : undefined;
       const dist = { ...(result!.facetDistribution ?? {}) };
-      others.forEach((other, i) => {
-        const facet = searches[i + 1]!.facets[0]!;
-        dist[facet] = other.facetDistribution?.[facet] ?? {};
-      });
+      facetsAlone.forEach((facet, i) => (dist[facet] = rest[i]!.facetDistribution?.[facet] ?? {}));
+      const exactSku = code && byCode ? partNamedBy(code, byCode.hits) : null;
       return {
         hits: result!.hits,
         total: result!.estimatedTotalHits ?? result!.hits.length,
@@ -216,7 +230,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     async exportRows(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
       const rows: PartDocument[] = [];
-      const [{ q, facets: _facets, ...page }] = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') });
+      const { q, facets: _facets, ...page } = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') }).page;
       for (let offset = 0; offset < 20_000; offset += 1000) {
         const { hits } = await partsIndex.index.search(q, { ...page, limit: 1000, offset });
         rows.push(...(hits as PartDocument[]));

@@ -149,7 +149,7 @@ try {
     return { q: queries[i % queries.length]!, pageSize: '50', ...(category ? { category } : {}) };
   };
   // The bench signs in as sales, who may see supplier data.
-  const engineSearches = (i: number) => catalogueSearches(PartListQuerySchema.parse(apiQuery(i)), { supplierData: true });
+  const engineSearches = (i: number) => catalogueSearches(PartListQuerySchema.parse(apiQuery(i)), { supplierData: true }).searches;
   const searchInProcess = (i: number) => {
     const memo = new Map();
     for (const request of engineSearches(i)) engine.search(request, memo);
