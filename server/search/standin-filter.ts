@@ -262,6 +262,28 @@ function rangeSets(field: FacetField, from: string, to: string): Iterable<number
   return min === undefined || max === undefined ? [] : [field.between(min, max, true, true)];
 }
 
+const FEW_DOCUMENTS = 1024;
+
+/**
+ * The documents of a filter made only of equalities joined by OR (`sku = X OR gtin = Y`), in id
+ * order, straight from the value maps; null for any other filter, or when the values hold more
+ * than a few documents. Building document-wide bitmaps for a few documents costs more than the answer.
+ */
+export function idsOfEqualities(node: FilterNode, source: FilterSource): Int32Array | null {
+  const sets: Set<number>[] = [];
+  const collect = (n: FilterNode): boolean => {
+    if (n.kind === 'or') return n.children.every(collect);
+    if (n.kind !== 'compare' || n.op !== '=') return false;
+    sets.push(...source.field(n.attribute).equalTo(n.value));
+    return true;
+  };
+  // A value most documents share (`archived = false`) is cheaper through the bitmaps.
+  if (!collect(node) || sets.reduce((total, set) => total + set.size, 0) > FEW_DOCUMENTS) return null;
+  const ids = new Set<number>();
+  for (const set of sets) for (const id of set) if (source.live[id]) ids.add(id);
+  return Int32Array.from(ids).sort();
+}
+
 export function evaluateFilter(node: FilterNode, source: FilterSource): DocBits {
   const size = source.live.length;
   switch (node.kind) {

@@ -8,7 +8,7 @@
 import { MeiliError, notFilterable } from './standin-errors.ts';
 import { scratch } from './standin-scratch.ts';
 import { bitsFromIds, FacetField, type DocBits } from './standin-facets.ts';
-import { evaluateFilter, parseFilter, type FilterNode, type FilterSource } from './standin-filter.ts';
+import { evaluateFilter, idsOfEqualities, parseFilter, type FilterNode, type FilterSource } from './standin-filter.ts';
 import {
   applySettings,
   defaultSettings,
@@ -393,13 +393,15 @@ export class StandinIndex {
       );
     }
     const facets = this.#facetFields(request.facets ?? []);
-    const filterBits = this.#searchFilter(request.filter);
-
     const size = this.#docs.length;
     const text = request.q ? this.#textMatches(request.q, request, textMemo) : null;
+    const few = text ? null : this.#fewNamed(request.filter);
+    const filterBits = few ? null : this.#searchFilter(request.filter);
     let matched: Int32Array;
     let matchedBits: DocBits | null = null;
-    if (text) {
+    if (few) {
+      matched = few;
+    } else if (text) {
       matched = filterBits ? keepSelected(text.ids, filterBits) : text.ids;
     } else {
       matchedBits = filterBits ?? this.#liveBits();
@@ -415,6 +417,13 @@ export class StandinIndex {
     if (request.facets) Object.assign(response, this.#facetSummary(facets, matched, bits));
     response.processingTimeMs = Math.round(performance.now() - started);
     return response;
+  }
+
+  /** For a placeholder search whose filter only names values (`sku = X OR …`): its documents. */
+  #fewNamed(input: unknown): Int32Array | null {
+    if (input === undefined || input === null) return null;
+    const filter = parseFilter(input, 'invalid_search_filter');
+    return filter ? idsOfEqualities(filter, this.#filterSource('invalid_search_filter')) : null;
   }
 
   /**
