@@ -634,14 +634,16 @@ export class StandinIndex {
   }
 
   /**
-   * Rank keys for the ranking rules in order, like Meilisearch's bucket sort. Rules without a
-   * signal here (proximity, wordPosition) are skipped, and text rules do not apply to a
+   * Rank keys for the ranking rules in order, like Meilisearch's bucket sort. `proximity` is
+   * approximated (are the matched words in one attribute?); rules without a signal here
+   * (wordPosition) are skipped, and text rules do not apply to a
    * placeholder search.
    */
   #rankingRules(text: TextMatches | null, sort: SortCriterion[]): RankKey[] {
     const keys: RankKey[] = [];
     for (const rule of this.#settings.rankingRules) {
       if (text && rule === 'words') keys.push({ values: text.words, top: MAX_QUERY_WORDS, descending: true });
+      else if (text && rule === 'proximity') keys.push({ values: text.proximity, top: 1, descending: false });
       else if (text && rule === 'typo') keys.push({ values: text.typos, top: MAX_QUERY_WORDS, descending: false });
       else if (text && (rule === 'attribute' || rule === 'attributeRank')) {
         keys.push({ values: text.attribute, top: text.attributes - 1, descending: false });

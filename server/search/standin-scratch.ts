@@ -4,7 +4,7 @@
 // synchronously one at a time, so one set per purpose is enough. What a search returns or keeps
 // is copied out of these (`slice`), never handed out.
 
-type Typed = Uint8Array | Uint16Array | Int32Array | Float64Array;
+type Typed = Uint8Array | Uint16Array | Uint32Array | Int32Array | Float64Array;
 
 const pools = new Map<string, Typed>();
 
@@ -23,6 +23,7 @@ export const scratch = {
   float64: (purpose: string, size: number) => take(purpose, size, (n) => new Float64Array(n)),
   uint16: (purpose: string, size: number) => take(purpose, size, (n) => new Uint16Array(n)),
   uint8: (purpose: string, size: number) => take(purpose, size, (n) => new Uint8Array(n)),
+  uint32: (purpose: string, size: number) => take(purpose, size, (n) => new Uint32Array(n)),
   /** Zeroed over [0, size). */
   zeroedUint8: (purpose: string, size: number) => take(purpose, size, (n) => new Uint8Array(n)).fill(0, 0, size),
 };

@@ -1,7 +1,7 @@
 // Full-text matching for the search stand-in. Terms live in minisearch's radix tree
 // (SearchableMap), which answers the exact, prefix and fuzzy term lookups; each term maps to the
 // documents containing it. Instead of a relevance score, a search yields per-document signals for
-// Meilisearch's ranking rules (matched words, typos, exact words, best attribute), which the index
+// Meilisearch's ranking rules (matched words, typos, words together, best attribute, exact words), which the index
 // then bucket-sorts like Meilisearch. Skipping BM25 scoring keeps searches over 50,000 documents fast.
 
 import SearchableMap from 'minisearch/SearchableMap';
@@ -22,6 +22,11 @@ export type TextMatches = {
   exact: Uint8Array;
   /** Position in searchableAttributes of the best matching attribute (the `attribute` rule). */
   attribute: Uint16Array;
+  /**
+   * 0 when the matched query words all occur in one attribute, else 1: a stand-in for the
+   * `proximity` rule, which has no word positions here to measure distances with.
+   */
+  proximity: Uint8Array;
   /** How many searchable attributes there are: `attribute` values lie below it. */
   attributes: number;
 };
@@ -161,12 +166,13 @@ function adjacentSwaps(term: string): string[] {
 /** Per-document match quality of one query word, and the best attribute it matched in. */
 class WordMatch {
   readonly quality: Uint8Array;
-  readonly attribute: Uint16Array;
+  /** The attributes the word matched in, per document (valid where quality is set). */
+  readonly attributes: Uint32Array;
 
   /** `position` is the word's place in the query: each word has its own work arrays. */
   constructor(size: number, position: number) {
     this.quality = scratch.zeroedUint8(`word-quality-${position}`, size);
-    this.attribute = scratch.uint16(`word-attribute-${position}`, size);
+    this.attributes = scratch.uint32(`word-attributes-${position}`, size);
   }
 
   /** Marks the term's documents, counting only its occurrences in the `searchOn` attributes. */
@@ -177,8 +183,7 @@ class WordMatch {
       const held = attributes[i] & searchOn;
       if (held === 0) continue;
       const id = ids[i];
-      const rank = lowestBit(held);
-      if (this.quality[id] === Quality.None || rank < this.attribute[id]) this.attribute[id] = rank;
+      this.attributes[id] = this.quality[id] === Quality.None ? held : this.attributes[id] | held;
       if (quality > this.quality[id]) this.quality[id] = quality;
     }
   }
@@ -245,16 +250,17 @@ export class TextIndex {
       typos: slot === null ? new Uint8Array(size) : scratch.uint8(`text-typos-${slot}`, size),
       exact: slot === null ? new Uint8Array(size) : scratch.uint8(`text-exact-${slot}`, size),
       attribute: slot === null ? new Uint16Array(size) : scratch.uint16(`text-attribute-${slot}`, size),
+      proximity: slot === null ? new Uint8Array(size) : scratch.uint8(`text-proximity-${slot}`, size),
       attributes: this.#fields.length,
     };
     const qualities = matches.map((match) => match.quality);
-    const attributes = matches.map((match) => match.attribute);
-    const { words: wordsOf, typos: typosOf, exact: exactOf, attribute: attributeOf } = result;
+    const sets = matches.map((match) => match.attributes);
+    const { words: wordsOf, typos: typosOf, exact: exactOf, attribute: attributeOf, proximity: proximityOf } = result;
     const first = qualities[0];
     let count = 0;
     if (qualities.length === 1) {
       // One word (most keystrokes): its match quality is the whole story.
-      const firstAttribute = attributes[0];
+      const firstSets = sets[0];
       for (let id = 0; id < size; id++) {
         const quality = first[id];
         if (quality === Quality.None) continue;
@@ -262,7 +268,8 @@ export class TextIndex {
         wordsOf[id] = 1;
         typosOf[id] = quality === Quality.Typo ? 1 : 0;
         exactOf[id] = quality === Quality.Exact ? 1 : 0;
-        attributeOf[id] = firstAttribute[id];
+        attributeOf[id] = lowestBit(firstSets[id]);
+        proximityOf[id] = 0;
       }
     } else {
       for (let id = 0; id < size; id++) {
@@ -270,21 +277,24 @@ export class TextIndex {
         let matched = 0;
         let typos = 0;
         let exact = 0;
-        let attribute = attributes[0][id];
+        let anywhere = 0;
+        let together = ALL_ATTRIBUTES;
         for (let w = 0; w < qualities.length; w++) {
           const quality = qualities[w][id];
           if (quality === Quality.None) break;
           matched++;
           if (quality === Quality.Typo) typos++;
           else if (quality === Quality.Exact) exact++;
-          if (attributes[w][id] < attribute) attribute = attributes[w][id];
+          anywhere |= sets[w][id];
+          together &= sets[w][id];
         }
         if (matched < fewestWords) continue;
         ids[count++] = id;
         wordsOf[id] = matched;
         typosOf[id] = typos;
         exactOf[id] = exact;
-        attributeOf[id] = attribute;
+        attributeOf[id] = lowestBit(anywhere);
+        proximityOf[id] = together === 0 ? 1 : 0;
       }
     }
     result.ids = ids.slice(0, count);

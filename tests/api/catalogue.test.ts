@@ -99,6 +99,16 @@ describe('GET /api/parts', () => {
     }
   });
 
+  it('puts the parts a partial SKU names first', async () => {
+    const agent = await t.signIn('sales');
+    const res = await agent.get('/api/parts').query({ q: 'HLM-TOR-M' }).expect(200);
+    // Common practice: a SKU typed in part finds that SKU family first, not parts that merely
+    // mention its words in different fields.
+    const top = res.body.data.slice(0, 3).map((p: { sku: string }) => p.sku);
+    expect(top.every((sku: string) => sku.startsWith('HLM-TOR-'))).toBe(true);
+    expect(top).toContain('HLM-TOR-M5');
+  });
+
   it('jumps to a part whose code has letters only', async () => {
     const purchasing = await t.signIn('purchasing');
     await purchasing.post('/api/parts').send(newPart({ sku: 'LEVELKIT' })).expect(201);

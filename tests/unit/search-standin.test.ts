@@ -293,6 +293,27 @@ describe('search', () => {
     expect(ids((await index.search('relay')).hits)).toEqual(['p4', 'p1']);
   });
 
+  it('ranks documents holding the query words together in one attribute first (proximity)', async () => {
+    const index = client.index(`proximity_${++indexCounter}`);
+    await succeeded(index.updateSettings({ searchableAttributes: ['code', 'name'] }));
+    await succeeded(
+      index.addDocuments(
+        [
+          // Stored first, so without the rule it would win the final tie-break on document order.
+          { id: 'a', code: 'TOR-CBL-6', name: 'Cable for the wall kit' },
+          { id: 'b', code: 'TOR-WALL-M', name: 'Bracket' },
+        ],
+        { primaryKey: 'id' },
+      ),
+    );
+    // Meilisearch docs, "Ranking rules": proximity ranks documents whose query words are close
+    // together above those where they are far apart (here: split across attributes).
+    expect(ids((await index.search('tor wall')).hits)).toEqual(['b', 'a']);
+    // Removing the rule leaves document order.
+    await succeeded(index.updateRankingRules(['words', 'typo', 'attribute', 'sort', 'exactness']));
+    expect(ids((await index.search('tor wall')).hits)).toEqual(['a', 'b']);
+  });
+
   it('filters with the string syntax', async () => {
     const index = await partsIndex();
     const search = async (filter: string) => ids((await index.search('', { filter })).hits);
