@@ -261,6 +261,15 @@ describe('media uploads', () => {
     expect(res.body.data).toMatchObject({ kind: 'image', contentType: 'image/png', fileName: 'photo.png' });
     const thumb = await agent.get(res.body.data.thumbnailUrl).expect(200);
     expect(thumb.headers['content-type']).toBe('image/webp');
+    // Stored files never change under their id: cached privately for a year (RFC 9111
+    // immutable), never sniffed, shown inline under their cleaned name.
+    const original = await agent.get(res.body.data.url).expect(200);
+    for (const served of [thumb, original]) {
+      expect(served.headers['cache-control']).toBe('private, max-age=31536000, immutable');
+      expect(served.headers['x-content-type-options']).toBe('nosniff');
+    }
+    expect(original.headers['content-type']).toBe('image/png');
+    expect(original.headers['content-disposition']).toBe('inline; filename="photo.png"');
     const meta = await sharp(thumb.body).metadata();
     expect(Math.max(meta.width!, meta.height!)).toBe(320);
     const list = await agent.get('/api/parts').query({ q: sku }).expect(200);
@@ -371,6 +380,26 @@ describe('identity rules', () => {
       expect(JSON.stringify(list.body)).not.toMatch(/cost/i);
       const csv = await agent.get('/api/parts/export.csv').expect(200);
       expect(csv.text.split('\n')[0]).not.toMatch(/cost/i);
+    }
+  });
+});
+
+describe('start-up index check', () => {
+  it('rebuilds an empty index from the database and leaves a full one alone', async () => {
+    const fresh = await createTestApp();
+    try {
+      await fresh.db.transaction((tx) => seedCatalogue(tx));
+      const index = fresh.services.partsIndex;
+      // The engine restarted empty (the stand-in keeps its index in memory): every part comes back.
+      await index.index.deleteAllDocuments().waitTask();
+      expect(await index.ensure(fresh.db)).toEqual({ rebuilt: true, documents: demoParts.length });
+      expect((await index.index.getStats()).numberOfDocuments).toBe(demoParts.length);
+      // A second start finds it full and sends nothing.
+      expect(await index.ensure(fresh.db)).toEqual({ rebuilt: false, documents: demoParts.length });
+      const sales = await fresh.signIn('sales');
+      expect((await sales.get('/api/parts').expect(200)).body.total).toBe(demoParts.length);
+    } finally {
+      await fresh.close();
     }
   });
 });
