@@ -24,6 +24,8 @@ export interface RouteDef<B extends ZodType, Q extends ZodType, P extends ZodTyp
   status?: number;
   /** For routes whose success is not JSON (files). */
   produces?: string;
+  /** The multipart form an upload route reads (files arrive through its middleware), for the OpenAPI document. */
+  upload?: ZodType;
   middleware?: RequestHandler[];
   /** Checked before `middleware` runs, so nobody without it gets an upload buffered. */
   ability?: Ability;
@@ -87,7 +89,11 @@ export class Api {
       summary: def.summary,
       tags: [def.tag],
       request: {
-        body: def.body ? { content: { 'application/json': { schema: def.body } } } : undefined,
+        body: def.body
+          ? { content: { 'application/json': { schema: def.body } } }
+          : def.upload
+            ? { content: { 'multipart/form-data': { schema: def.upload } } }
+            : undefined,
         query: def.query as never,
         params: def.params as never,
       },

@@ -11,6 +11,8 @@ import { AppError } from '../errors.ts';
 
 const SkuParams = z.object({ sku: z.string().min(1).max(64) });
 const MediaParams = z.object({ id: z.string().uuid('Unknown file.') });
+/** The upload form: one file, its type decided by its content (OpenAPI "binary" string). */
+const MediaUploadForm = z.object({ file: z.string().meta({ format: 'binary', description: 'A JPEG, PNG or WebP photo, or a PDF datasheet' }) });
 const detail = z.object({ data: PartDetailSchema });
 
 /** Multer errors (too big, too many files) as our 4xx envelope. */
@@ -75,7 +77,7 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
     });
   }
 
-  api.route({ method: 'post', path: '/parts/:sku/media', summary: 'Upload a photo (JPEG/PNG/WebP ≤ 5 MB) or datasheet (PDF ≤ 20 MB)', tag: 'catalogue', params: SkuParams, response: z.object({ data: MediaSchema }), status: 201, ability: 'catalogue.edit', middleware: [uploadOne] }, async ({ actor, params, req }) => {
+  api.route({ method: 'post', path: '/parts/:sku/media', summary: 'Upload a photo (JPEG/PNG/WebP ≤ 5 MB) or datasheet (PDF ≤ 20 MB)', tag: 'catalogue', params: SkuParams, upload: MediaUploadForm, response: z.object({ data: MediaSchema }), status: 201, ability: 'catalogue.edit', middleware: [uploadOne] }, async ({ actor, params, req }) => {
     const row = await media.upload(actor, params.sku, req.file);
     await catalogue.reindex(row.partId);
     return { data: presentMedia(row) };

@@ -294,7 +294,7 @@ describe('search', () => {
   });
 
   it('ranks documents holding the query words together in one attribute first (proximity)', async () => {
-    const index = client.index(`proximity_${++indexCounter}`);
+    const index = client.index<{ id: string; code: string; name: string }>(`proximity_${++indexCounter}`);
     await succeeded(index.updateSettings({ searchableAttributes: ['code', 'name'] }));
     await succeeded(
       index.addDocuments(
