@@ -114,6 +114,52 @@ describe('catalogue search (trade desk)', () => {
   });
 });
 
+describe('browsing results and a part page (sales)', () => {
+  it('sorts by a column header, pages through results, and shows a superseded part with its successor', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'sales@stackyard.test');
+    await openCatalogue(page);
+    const all = await resultCount(page);
+    expect(all).toBeGreaterThan(50); // more than one page of 50
+
+    // A click on the SKU header sorts ascending, a second descending (the URL keeps it).
+    const skuHeader = resultsTable(page).getByRole('columnheader', { name: /SKU/ });
+    const firstSku = () => resultsTable(page).locator('tbody tr').first().locator('td:nth-child(2)').textContent();
+    await skuHeader.getByRole('button').click();
+    await page.waitForURL(/sort=sku/);
+    await expect.poll(() => skuHeader.getAttribute('aria-sort')).toBe('ascending');
+    const ascending = [...parts.map((p) => p.sku)].sort()[0];
+    await expect.poll(firstSku).toBe(ascending);
+    await skuHeader.getByRole('button').click();
+    await expect.poll(() => skuHeader.getAttribute('aria-sort')).toBe('descending');
+    const descending = [...parts.map((p) => p.sku)].sort().at(-1);
+    await expect.poll(firstSku).toBe(descending);
+
+    // Next shows the following page of the same order; Previous comes back.
+    const firstPage = await resultsTable(page).locator('tbody tr td:nth-child(2)').allTextContents();
+    await page.getByRole('button', { name: 'Next →' }).click();
+    await page.waitForURL(/page=2/);
+    await expect.poll(async () => (await resultsTable(page).locator('tbody tr td:nth-child(2)').allTextContents())[0]).not.toBe(firstPage[0]);
+    const secondPage = await resultsTable(page).locator('tbody tr td:nth-child(2)').allTextContents();
+    expect(secondPage.some((sku) => firstPage.includes(sku))).toBe(false);
+    expect(secondPage[0]! < firstPage.at(-1)!).toBe(true); // still descending across the page break
+    await page.getByRole('button', { name: '← Previous' }).click();
+    await expect.poll(firstSku).toBe(descending);
+
+    // A superseded part: its specs in groups, compliance, stock per warehouse and a link on to its successor.
+    const old = parts.find((p) => p.supersededBy === module5.sku)!;
+    await page.goto(`/catalogue/${old.sku}`);
+    await page.getByRole('heading', { level: 1, name: old.name }).waitFor();
+    for (const section of ['Electrical', 'Physical', 'Compliance', 'Stock by warehouse']) {
+      await page.getByRole('heading', { level: 2, name: section }).waitFor();
+    }
+    await page.getByRole('link', { name: new RegExp(module5.sku) }).first().click();
+    await page.waitForURL(`**/catalogue/${module5.sku}`);
+    await page.getByRole('heading', { level: 1, name: module5.name }).waitFor();
+    expect(await page.getByText(old.sku).count()).toBeGreaterThan(0); // "Replaces" the old one
+  });
+});
+
 describe('editing a part (purchasing)', () => {
   it('changes a part’s name and refuses an invalid GTIN next to the field', async () => {
     const page = await h.newPage();
