@@ -193,6 +193,38 @@ describe('editing a part (purchasing)', () => {
   });
 });
 
+describe('creating a part (purchasing)', () => {
+  it('shows the chosen category’s own fields, puts the server’s duplicate-SKU refusal beside the SKU, then creates it', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'purchasing@stackyard.test');
+    await openCatalogue(page);
+    await page.getByRole('link', { name: 'New part' }).click();
+    const form = page.getByRole('form', { name: 'New part' });
+    await form.waitFor();
+    expect(await form.getByLabel('Length (m)').count()).toBe(0);
+    await form.getByLabel('Category').selectOption('cable-set');
+    // A cable set asks for its length and cross-section (the shared field table).
+    await form.getByLabel(/^Length \(m\)/).fill('2.5');
+    await form.getByLabel(/^Cross-section/).fill('25');
+
+    // An SKU that exists already: only the server knows, and its answer lands beside the field.
+    const sku = form.getByLabel('SKU');
+    await sku.fill(module5.sku);
+    await form.getByLabel('Name', { exact: true }).fill('Test cable set 2.5 m');
+    await form.getByLabel('Maker').selectOption('HLM');
+    await form.getByLabel('Mass (kg)').fill('1.2');
+    await form.getByRole('button', { name: 'Create part' }).click();
+    await expect.poll(() => fieldMessage(sku)).toMatch(/already/i);
+    expect(await sku.getAttribute('aria-invalid')).toBe('true');
+
+    await sku.fill('TST-CBL-25');
+    await form.getByRole('button', { name: 'Create part' }).click();
+    await page.waitForURL(/\/catalogue\/TST-CBL-25$/);
+    await page.getByRole('heading', { level: 1, name: 'Test cable set 2.5 m' }).waitFor();
+    expect(await page.getByText('2.5 m').count()).toBeGreaterThan(0);
+  });
+});
+
 describe('browsing by maker and range', () => {
   it('lists makers, kinds of part and ranges with counts, each opening the filtered catalogue', async () => {
     const page = await h.newPage();
