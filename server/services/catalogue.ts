@@ -141,7 +141,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
       });
   }
 
-  function columnsFrom(input: PartInputParsed, refs: { makerId: string; supersededById: string | null }) {
+  function columnsFrom(input: PartInputParsed, refs: { makerId: string; supersededById: string | null }, existing: PartRow | null) {
     return {
       sku: input.sku,
       name: input.name,
@@ -161,7 +161,8 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
       unNumber: input.dangerousGoods?.unNumber ?? null,
       dgClass: input.dangerousGoods?.class ?? null,
       whRating: input.dangerousGoods?.whRating ?? null,
-      costCents: input.costCents ?? null,
+      // Left out (a form for someone who may not see cost) keeps the cost; null clears it.
+      costCents: input.costCents === undefined ? (existing?.costCents ?? null) : input.costCents,
       listPriceCents: input.listPriceCents ?? null,
       attributes: input.attributes,
       compliance: input.compliance ?? null,
@@ -176,7 +177,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
       return await db.transaction(async (tx) => {
         if (existing && existing.sku !== input.sku) await refuseRenameInUse(tx, existing.sku);
         const refs = await resolveRefs(tx, input);
-        const values = columnsFrom(input, refs);
+        const values = columnsFrom(input, refs, existing);
         const [row] = existing
           ? await tx.update(parts).set(values).where(eq(parts.id, existing.id)).returning()
           : await tx.insert(parts).values(values).returning();

@@ -165,6 +165,17 @@ describe('GET /api/parts/:sku', () => {
     expect(res.body.data.abilities.edit).toBe(true);
   });
 
+  it('keeps a part’s cost when a save leaves cost out, and clears it only on an explicit null', async () => {
+    const agent = await t.signIn('purchasing');
+    const input = newPart({ sku: 'TST-COST-1', costCents: 4321 });
+    await agent.post('/api/parts').send(input).expect(201);
+    const { costCents: _left, ...withoutCost } = input;
+    await agent.patch('/api/parts/TST-COST-1').send({ ...withoutCost, name: 'Renamed, cost untouched' }).expect(200);
+    expect((await agent.get('/api/parts/TST-COST-1').expect(200)).body.data.costCents).toBe(4321);
+    await agent.patch('/api/parts/TST-COST-1').send({ ...withoutCost, costCents: null }).expect(200);
+    expect((await agent.get('/api/parts/TST-COST-1').expect(200)).body.data.costCents).toBeNull();
+  });
+
   it('links superseded parts both ways', async () => {
     const old = demoParts.find((p) => p.lifecycle === 'superseded')!;
     const agent = await t.signIn('sales');
