@@ -5,7 +5,6 @@ import type { DbOrTx } from '../db/client.ts';
 import { makers, partMedia, parts, partSupplierSkus, rangeInverters, ranges, stockLevels } from '../db/schema/index.ts';
 import type { SearchClient } from './client.ts';
 import { AppError } from '../errors.ts';
-import { normalizeGtin14 } from '@shared/domain/gtin.ts';
 
 export const PARTS_INDEX = 'parts';
 
@@ -76,6 +75,7 @@ export function createPartsIndex(search: SearchClient) {
         maker: makers.code,
         makerName: makers.name,
         gtin: parts.gtin,
+        gtin14: parts.gtin14,
         lifecycle: parts.lifecycle,
         attributes: parts.attributes,
         description: parts.description,
@@ -123,7 +123,7 @@ export function createPartsIndex(search: SearchClient) {
         maker: r.maker,
         makerName: r.makerName,
         gtin: r.gtin,
-        gtin14: r.gtin ? normalizeGtin14(r.gtin) : null,
+        gtin14: r.gtin14,
         supplierSkus: supplierSkus.get(r.id) ?? [],
         ranges: rangeRows.get(r.id) ?? [],
         lifecycle: r.lifecycle,

@@ -49,8 +49,16 @@ function asCode(q: string, supplierData: boolean) {
   return { code, gtin14, supplierData };
 }
 
+type Code = NonNullable<ReturnType<typeof asCode>>;
+
+/** The engine search for the parts a code names, as filters on the exact values. */
+function codeSearch({ code, gtin14, supplierData }: Code) {
+  const names = [`sku = ${quote(code)}`, ...(gtin14 ? [`gtin14 = ${quote(gtin14)}`] : []), ...(supplierData ? [`supplierSkus = ${quote(code)}`] : [])];
+  return { q: '', filter: names.join(' OR '), limit: 3, attributesToRetrieve: ['sku', 'gtin14'] };
+}
+
 /** Of the parts a code matched, the one it names first: by SKU, then GTIN, then supplier SKU. */
-function partNamedBy({ code, gtin14 }: NonNullable<ReturnType<typeof asCode>>, hits: Pick<PartDocument, 'sku' | 'gtin14'>[]) {
+function partNamedBy({ code, gtin14 }: Code, hits: Pick<PartDocument, 'sku' | 'gtin14'>[]) {
   return (hits.find((h) => h.sku === code) ?? hits.find((h) => gtin14 !== null && h.gtin14 === gtin14) ?? hits[0])?.sku ?? null;
 }
 
@@ -77,22 +85,13 @@ export function catalogueSearches(query: PartListQuery, { supplierData }: { supp
   const facetsAlone = chosen.filter(([, v]) => v !== undefined).map(([f]) => f);
   const variants = facetsAlone.map((f) => ({ q: query.q, attributesToSearchOn, filter: filterFor(chosen, f), facets: [f] as string[], limit: 0 }));
   const code = asCode(query.q, supplierData);
-  const byCode = code && {
-    q: '',
-    filter: [`sku = ${quote(code.code)}`, ...(code.gtin14 ? [`gtin14 = ${quote(code.gtin14)}`] : []), ...(supplierData ? [`supplierSkus = ${quote(code.code)}`] : [])].join(' OR '),
-    limit: 3,
-    attributesToRetrieve: ['sku', 'gtin14'],
-  };
-  return { page, searches: [page, ...variants, ...(byCode ? [byCode] : [])], facetsAlone, code };
+  return { page, searches: [page, ...variants, ...(code ? [codeSearch(code)] : [])], facetsAlone, code };
 }
 
 const SEARCHABLE_WITHOUT_SUPPLIERS = PARTS_INDEX_SETTINGS.searchableAttributes.filter((a) => a !== 'supplierSkus');
 
-const PART_BY_CODE = `
-  (select sku from parts where sku = $1)
-  union all (select sku from parts where $2::text is not null and gtin14 = $2::text)
-  union all (select p.sku from part_supplier_skus s join parts p on p.id = s.part_id where $3::boolean and upper(s.supplier_sku) = $1)
-  limit 1`;
+/** Supplier data (and finding parts by a supplier's SKU) is for the roles that may see it. */
+const seesSuppliers = (actor: Actor) => can(actor.role, 'suppliers.view');
 
 /** `onPartsChanged` lets caches built from part data (the planner's ranges) drop what they hold. */
 export function createCatalogueService({ db, partsIndex, onPartsChanged = () => {} }: { db: Db; partsIndex: PartsIndex; onPartsChanged?: () => void }) {
@@ -100,15 +99,6 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     const [p] = await db.select().from(parts).where(eq(parts.sku, sku.toUpperCase()));
     if (!p) throw new NotFoundError(`Part ${sku}`);
     return p;
-  }
-
-  /** A scanned or typed code looked up in the database (the catalogue page asks the engine). */
-  async function exactMatch(actor: Actor, text: string): Promise<string | null> {
-    const code = asCode(text, can(actor.role, 'suppliers.view'));
-    if (!code) return null;
-    // Three indexed look-ups; the first that answers wins.
-    const { rows } = await db.$client.query<{ sku: string }>({ name: 'part-by-code', text: PART_BY_CODE, values: [code.code, code.gtin14, code.supplierData] });
-    return rows[0]?.sku ?? null;
   }
 
   /** Names → ids for a part's references, with field-level messages for what does not exist. */
@@ -193,10 +183,13 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
   }
 
   return {
-    async lookup(actor: Actor, code: string) {
+    /** A scanned or typed code: the part it names, found the way the catalogue page finds it. */
+    async lookup(actor: Actor, text: string) {
       authorize(actor, 'catalogue.view');
-      const sku = await exactMatch(actor, code);
-      if (!sku) throw new NotFoundError(`A part with the code ${code}`);
+      const code = asCode(text, seesSuppliers(actor));
+      const [found] = code ? await partsIndex.searchMany([codeSearch(code)]) : [];
+      const sku = code && found ? partNamedBy(code, found.hits) : null;
+      if (!sku) throw new NotFoundError(`A part with the code ${text}`);
       return { sku };
     },
 
@@ -207,7 +200,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
 
     async list(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
-      const { searches, facetsAlone, code } = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') });
+      const { searches, facetsAlone, code } = catalogueSearches(query, { supplierData: seesSuppliers(actor) });
       const [result, ...rest] = await partsIndex.searchMany(searches);
       const byCode = code ? rest.pop() : undefined;
       const dist = { ...(result!.facetDistribution ?? {}) };
@@ -231,7 +224,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
     async exportRows(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
       const rows: PartDocument[] = [];
-      const { q, facets: _facets, ...page } = catalogueSearches(query, { supplierData: can(actor.role, 'suppliers.view') }).page;
+      const { q, facets: _facets, ...page } = catalogueSearches(query, { supplierData: seesSuppliers(actor) }).page;
       for (let offset = 0; offset < 20_000; offset += 1000) {
         const { hits } = await partsIndex.index.search(q, { ...page, limit: 1000, offset });
         rows.push(...(hits as PartDocument[]));
@@ -259,7 +252,7 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
           .leftJoin(stockLevels, and(eq(stockLevels.warehouseId, warehouses.id), eq(stockLevels.partId, p.id)))
           .groupBy(warehouses.id)
           .orderBy(asc(warehouses.rank), asc(warehouses.code)),
-        can(actor.role, 'suppliers.view')
+        seesSuppliers(actor)
           ? db.select({ supplier: suppliers.code, sku: partSupplierSkus.supplierSku }).from(partSupplierSkus).innerJoin(suppliers, eq(suppliers.id, partSupplierSkus.supplierId)).where(eq(partSupplierSkus.partId, p.id))
           : Promise.resolve(null),
         rangeMembership(db, [p.id]),
