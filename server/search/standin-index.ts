@@ -165,6 +165,25 @@ function parseSortCriterion(expression: string, code: string): SortCriterion {
   return { attribute: match[1], descending: match[2] === 'desc' };
 }
 
+/** The documents a filter selects, as a byte map and as ids, each made on first use. */
+class Selection {
+  #bits: DocBits | null = null;
+  #ids: Int32Array | null = null;
+
+  constructor(
+    private readonly makeBits: () => DocBits,
+    private readonly makeIds: () => Int32Array,
+  ) {}
+
+  bits(): DocBits {
+    return (this.#bits ??= this.makeBits());
+  }
+
+  ids(): Int32Array {
+    return (this.#ids ??= this.makeIds());
+  }
+}
+
 /** The ids whose bit is set, in their order. */
 function keepSelected(ids: Int32Array, bits: DocBits): Int32Array {
   const kept = scratch.int32('kept-ids', ids.length);
@@ -263,7 +282,7 @@ export class StandinIndex {
   #facets = new Map<string, FacetField>();
   #sortRanks = new Map<string, SortRanks>();
   /** Evaluated search filters by their JSON, until the next write: most searches repeat a few. */
-  #filterResults = new Map<string, DocBits | null>();
+  #filterResults = new Map<string, Selection | null>();
 
   constructor(
     readonly uid: string,
@@ -395,16 +414,15 @@ export class StandinIndex {
     const facets = this.#facetFields(request.facets ?? []);
     const size = this.#docs.length;
     const text = request.q ? this.#textMatches(request.q, request, textMemo) : null;
-    const few = text ? null : this.#fewNamed(request.filter);
-    const filterBits = few ? null : this.#searchFilter(request.filter);
+    const selection = this.#searchFilter(request.filter);
     let matched: Int32Array;
     let matchedBits: DocBits | null = null;
-    if (few) {
-      matched = few;
-    } else if (text) {
-      matched = filterBits ? keepSelected(text.ids, filterBits) : text.ids;
+    if (text) {
+      matched = selection ? keepSelected(text.ids, selection.bits()) : text.ids;
+    } else if (selection) {
+      matched = selection.ids();
     } else {
-      matchedBits = filterBits ?? this.#liveBits();
+      matchedBits = this.#liveBits();
       matched = this.#selectedIds(matchedBits);
     }
 
@@ -419,33 +437,33 @@ export class StandinIndex {
     return response;
   }
 
-  /** For a placeholder search whose filter only names values (`sku = X OR …`): its documents. */
-  #fewNamed(input: unknown): Int32Array | null {
-    if (input === undefined || input === null) return null;
-    const filter = parseFilter(input, 'invalid_search_filter');
-    return filter ? idsOfEqualities(filter, this.#filterSource('invalid_search_filter')) : null;
-  }
-
   /**
    * The documents a search filter selects, or null when it keeps every document (no filter, or
    * one such as `archived = false` that nothing fails): then there is nothing to filter out.
-   * Callers must not write to the result.
+   * Kept until the next write. A filter that only names a few values (`sku = X OR …`) is read
+   * from the value maps, without document-wide bitmaps. Callers must not write to the result.
    */
-  #searchFilter(input: unknown): DocBits | null {
+  #searchFilter(input: unknown): Selection | null {
     const key = JSON.stringify(input ?? null);
     const cached = this.#filterResults.get(key);
     if (cached !== undefined) return cached;
     const filter = parseFilter(input, 'invalid_search_filter');
-    let bits: DocBits | null = null;
+    let selection: Selection | null = null;
     if (filter) {
-      bits = evaluateFilter(filter, this.#filterSource('invalid_search_filter'));
-      let selected = 0;
-      for (let id = 0; id < bits.length; id++) selected += bits[id];
-      if (selected === this.documentCount) bits = null;
+      const source = this.#filterSource('invalid_search_filter');
+      const few = idsOfEqualities(filter, source);
+      if (few) {
+        selection = new Selection(() => bitsFromIds(few, this.#docs.length), () => few);
+      } else {
+        const bits = evaluateFilter(filter, source);
+        let selected = 0;
+        for (let id = 0; id < bits.length; id++) selected += bits[id];
+        if (selected < this.documentCount) selection = new Selection(() => bits, () => this.#selectedIds(bits));
+      }
     }
     if (this.#filterResults.size >= FILTER_RESULTS_KEPT) this.#filterResults.delete(this.#filterResults.keys().next().value!);
-    this.#filterResults.set(key, bits);
-    return bits;
+    this.#filterResults.set(key, selection);
+    return selection;
   }
 
   #resolvePrimaryKey(documents: Json[], requestedKey: string | undefined): string | null {
