@@ -58,7 +58,7 @@ class Postings {
 
   set(id: number, rank: number): void {
     const held = this.#attributes.get(id) ?? 0;
-    const next = (held | (1 << Math.min(rank, 31))) >>> 0;
+    const next = (held | attributeBit(rank)) >>> 0;
     if (next === held) return;
     this.#attributes.set(id, next);
     this.#packed = null;
@@ -83,6 +83,11 @@ class Postings {
     }
     return this.#packed;
   }
+}
+
+/** An attribute's bit in a set, by its position among the searchable attributes. */
+function attributeBit(rank: number): number {
+  return 1 << Math.min(rank, 31);
 }
 
 /** Position of the lowest set bit: the best attribute in a set. */
@@ -203,7 +208,7 @@ export class TextIndex {
   attributeSet(names: string[]): number {
     let set = 0;
     this.#fields.forEach((field, rank) => {
-      if (names.includes(field)) set |= 1 << Math.min(rank, 31);
+      if (names.includes(field)) set |= attributeBit(rank);
     });
     return set >>> 0;
   }
