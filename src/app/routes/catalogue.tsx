@@ -112,6 +112,8 @@ export function CatalogueRoute() {
   const onSortingChange = (s: SortingState) =>
     s[0] ? update({ sort: s[0].id as PartListQuery['sort'], dir: s[0].desc ? 'desc' : 'asc' }) : update({ sort: undefined, dir: undefined });
 
+  // Supplier SKUs find parts only for the roles that may see supplier data (the server decides).
+  const codes = hasAbility(me, 'suppliers.view') ? 'SKU, GTIN or supplier SKU' : 'SKU or GTIN';
   const total = data?.total ?? 0;
   const page = data?.page ?? filters.page ?? 1;
   const pages = Math.max(1, Math.ceil(total / (data?.pageSize ?? PAGE_SIZE)));
@@ -121,13 +123,13 @@ export function CatalogueRoute() {
     : total > 0 && page > pages
       ? `This page is past the last one: the search has ${pages} ${pages === 1 ? 'page' : 'pages'}. Use Previous, or change the search.`
       : q
-      ? `No part matches “${q}”${active.length ? ' with these filters' : ''}. Check the spelling or try fewer words${active.length ? ', or clear a filter' : ''}. A scanned code must be the whole SKU, GTIN or supplier SKU.`
+      ? `No part matches “${q}”${active.length ? ' with these filters' : ''}. Check the spelling or try fewer words${active.length ? ', or clear a filter' : ''}. A scanned code must be the whole ${codes}.`
       : 'No parts have these filters. Clear a filter to see more.';
 
   return (
     <Page
       title="Catalogue"
-      subtitle="Every part we carry, from every maker: search by words, SKU, GTIN or supplier SKU."
+      subtitle={`Every part we carry, from every maker: search by words, ${codes}.`}
       actions={
         <>
           <Link to={paths.catalogueBrowse.href()} className="inline-flex items-center gap-2 rounded-md border border-line bg-card px-3 py-1.5 text-sm font-medium hover:border-ink-soft">
