@@ -2,6 +2,7 @@ import { and, asc, desc, eq, inArray, or, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.ts';
 import { companies, makers, parts, rangeInverters, ranges, stackPlans, stockLevels, user, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
+import { companyForNew, companyScopeOf, isCompanyBound } from '../policies/company-scope.ts';
 import { can } from '@shared/roles.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
 import { createTtlCache, type TtlCache } from '../lib/ttl-cache.ts';
@@ -169,7 +170,10 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
   };
 
   /** Installers only ever see their own company's plans: anything else is "not found". */
-  const visibleTo = (actor: Actor) => (actor.role === 'installer' ? eq(stackPlans.companyId, actor.companyId ?? '00000000-0000-0000-0000-000000000000') : undefined);
+  const visibleTo = (actor: Actor) => {
+    const scope = companyScopeOf(actor);
+    return scope === null ? undefined : eq(stackPlans.companyId, scope);
+  };
 
   return {
     plan,
@@ -178,9 +182,9 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
       authorize(actor, 'plans.create');
       const result = await plan(actor, input.request);
       // Installers plan for their own company; staff plan for a customer account they name.
-      let companyId = actor.role === 'installer' ? actor.companyId : null;
-      if (actor.role !== 'installer' && input.companyId) {
-        const [c] = await db.select().from(companies).where(and(eq(companies.id, input.companyId), eq(companies.kind, 'installer')));
+      let companyId = companyForNew(actor, input.companyId);
+      if (companyId && !isCompanyBound(actor)) {
+        const [c] = await db.select().from(companies).where(and(eq(companies.id, companyId), eq(companies.kind, 'installer')));
         companyId = c?.id ?? null;
       }
       if (!companyId) throw new ValidationError('Choose the customer account this plan is for.', { fields: [{ path: 'companyId', message: 'Choose a customer account.' }] });
