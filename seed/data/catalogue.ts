@@ -61,11 +61,37 @@ export interface DemoPart {
 /** Same shape as the BOM rule contract in shared/domain/bom-rules.ts (kept local on purpose). */
 export type BomRule = {
   sku: string;
-  basis: 'per-system' | 'per-stack' | 'per-module' | 'per-cell-unit' | 'per-n-modules';
+  basis: 'per-system' | 'per-stack' | 'per-module' | 'per-cell-unit' | 'per-n-modules' | 'per-stack-link' | 'per-metre-of-run';
   qty: number;
   divisor?: number;
-  when?: { kind: 'always' } | { kind: 'dvc-b-or-c' } | { kind: 'multi-stack' } | { kind: 'height-over'; mm: number };
+  when?:
+    | { kind: 'always' }
+    | { kind: 'dvc-b-or-c' }
+    | { kind: 'multi-stack' }
+    | { kind: 'height-over'; mm: number }
+    | { kind: 'wall'; wall: 'stud' | 'masonry' }
+    | { kind: 'location'; location: 'indoor' | 'garage' | 'outdoor' }
+    | { kind: 'shares-habitable-wall' }
+    | { kind: 'floor'; floor: 'slab' | 'suspended' }
+    | { kind: 'country'; country: 'AU' | 'NZ' }
+    | { kind: 'stacks-over-inputs' }
+    | { kind: 'run-within'; overM: number; upToM: number };
 };
+
+/** Rules choosing one part by the battery-to-inverter cable run: the shortest that reaches. */
+function byRun(basis: BomRule['basis'], options: [sku: string, upToM: number][]): BomRule[] {
+  return options.map(([sku, upToM], i) => ({ sku, basis, qty: 1, when: { kind: 'run-within', overM: i === 0 ? 0 : options[i - 1]![1], upToM } }));
+}
+
+/** What every site adds, whatever the range: the parts a licensed installer would expect on the job. */
+function siteRules(p: { bollard: string; hood: string; board: string; seismic: string }): BomRule[] {
+  return [
+    { sku: p.bollard, basis: 'per-stack', qty: 1, when: { kind: 'location', location: 'garage' } },
+    { sku: p.hood, basis: 'per-stack', qty: 1, when: { kind: 'location', location: 'outdoor' } },
+    { sku: p.board, basis: 'per-stack', qty: 1, when: { kind: 'shares-habitable-wall' } },
+    { sku: p.seismic, basis: 'per-stack', qty: 1, when: { kind: 'country', country: 'NZ' } },
+  ];
+}
 
 export interface DemoRange {
   code: string;
@@ -1302,6 +1328,20 @@ add(
 );
 
 // =======================================================================================
+// Parts a whole job needs (added after the first catalogue, so earlier GTINs stay as they were)
+
+add(
+  accessory('HLM', 'HLM-COMM-INV-20', 'Battery-to-inverter comms cable, 20 m', 'Battery management comms to the inverter', 'Shielded comms cable, RJ45 both ends, 20 m.', 5_400, 0.8),
+  accessory('HLM', 'HLM-CDT-25', 'Hollowmere HV conduit 25 mm, orange', 'Mechanical protection for HV battery cables', 'Heavy-duty orange corrugated conduit for DC battery cables above 60 V, 25 mm, sold by the metre.', 340, 0.13, { unit: 'm', noGtin: true }),
+  accessory('HLM', 'HLM-ACC-HVJB', 'Tor HV parallel junction box', 'Joins up to three Tor stacks onto one inverter battery input', 'Enclosed HV junction box with per-stack fuses and touch-safe connectors, for inverters with fewer battery inputs than stacks.', 29_500, 4.2, { dims: [360, 420, 150], ipRating: 'IP65' }),
+  accessory('QRB', 'QRB-COMM-INV-10', 'Quarnby inverter comms cable, 10 m', 'Battery management comms to the inverter', 'Shielded comms cable, 10 m.', 3_200, 0.4),
+  accessory('QRB', 'QRB-ACC-FUSE250', 'DC fuse 250 A, pack of 2', 'Fuses for the 250 A DC fuse holder', 'Class T style 250 A DC fuses with high interrupting rating, for the Quarnby fuse holder; one fitted, one spare.', 5_200, 0.2, { unit: 'pack', packSize: 2 }),
+  accessory('QRB', 'QRB-ACC-HVJB', 'Ridge HV parallel junction box', 'Joins two Ridge stacks onto one inverter battery input', 'Enclosed HV junction box with per-stack fuses for two Ridge stacks.', 24_500, 3.6, { dims: [320, 380, 140], ipRating: 'IP65' }),
+  accessory('QRB', 'QRB-ACC-SEISMIC', 'Seismic restraint kit for battery stacks', 'Top and mid-height restraint for earthquake zones', 'Steel restraint brackets, cross-strap and structural fixings restraining one battery stack to the building frame in earthquake zones.', 8_900, 2.4, { unit: 'set' }),
+  accessory('TVP', 'TVP-LINK-1M', 'Stackline stack-to-stack comms link, 1 m', 'Links controller comms between parallel stacks', 'Shielded comms lead, 1 m, linking one Stackline controller to the next.', 1_700, 0.1),
+);
+
+// =======================================================================================
 // Finish the parts: GTINs in definition order per maker, then supplier codes.
 
 const KESTREL_BASE: Record<MakerCode, number> = { HLM: 410_000, QRB: 520_000, TVP: 0 };
@@ -1345,13 +1385,33 @@ export const ranges: DemoRange[] = [
     rules: [
       { sku: 'HLM-TOR-FEET', basis: 'per-stack', qty: 4, when: { kind: 'always' } },
       { sku: 'HLM-TOR-EC', basis: 'per-stack', qty: 1 },
+      // The universal bracket comes without fixings: the kit that suits the wall.
       { sku: 'HLM-TOR-WB-U', basis: 'per-stack', qty: 1 },
+      { sku: 'HLM-ACC-FIX-S', basis: 'per-stack', qty: 1, when: { kind: 'wall', wall: 'stud' } },
+      { sku: 'HLM-ACC-FIX-M', basis: 'per-stack', qty: 1, when: { kind: 'wall', wall: 'masonry' } },
       { sku: 'HLM-TOR-CLIP', basis: 'per-cell-unit', qty: 1 },
-      { sku: 'HLM-CBL-HV6-030', basis: 'per-stack', qty: 1 },
+      ...byRun('per-stack', [
+        ['HLM-CBL-HV6-015', 1.5],
+        ['HLM-CBL-HV6-030', 3],
+        ['HLM-CBL-HV6-050', 5],
+        ['HLM-CBL-HV6-100', 10],
+        ['HLM-CBL-HV6-200', 20],
+      ]),
       { sku: 'HLM-CCV-15', basis: 'per-stack', qty: 1, when: { kind: 'dvc-b-or-c' } },
+      { sku: 'HLM-CDT-25', basis: 'per-metre-of-run', qty: 1, when: { kind: 'dvc-b-or-c' } },
       { sku: 'HLM-EL-6-15', basis: 'per-stack', qty: 1 },
+      { sku: 'HLM-ACC-ISO', basis: 'per-system', qty: 1 },
+      ...byRun('per-system', [
+        ['HLM-COMM-INV-2', 2],
+        ['HLM-COMM-INV-5', 5],
+        ['HLM-COMM-INV-10', 10],
+        ['HLM-COMM-INV-20', 20],
+      ]),
       { sku: 'HLM-CT-CAN', basis: 'per-system', qty: 1 },
-      { sku: 'HLM-LINK-2M', basis: 'per-stack', qty: 1, when: { kind: 'multi-stack' } },
+      { sku: 'HLM-LINK-2M', basis: 'per-stack-link', qty: 1 },
+      { sku: 'HLM-ACC-HVJB', basis: 'per-system', qty: 1, when: { kind: 'stacks-over-inputs' } },
+      { sku: 'HLM-ACC-SIGN', basis: 'per-system', qty: 1 },
+      ...siteRules({ bollard: 'HLM-ACC-BOLL', hood: 'HLM-ACC-HOOD', board: 'HLM-ACC-BOARD', seismic: 'QRB-ACC-SEISMIC' }),
       { sku: 'HLM-TOR-STRAP', basis: 'per-stack', qty: 1, when: { kind: 'height-over', mm: 1200 } },
     ],
   },
@@ -1373,12 +1433,30 @@ export const ranges: DemoRange[] = [
     rules: [
       { sku: 'QRB-HEARTH-FEET', basis: 'per-stack', qty: 4 },
       { sku: 'QRB-HEARTH-EC', basis: 'per-stack', qty: 1 },
-      { sku: 'QRB-WB-M', basis: 'per-stack', qty: 1 },
-      { sku: 'QRB-CBL-LV50-020', basis: 'per-stack', qty: 1 },
+      // Quarnby brackets come with fixings for one kind of wall: the bracket that suits it.
+      { sku: 'QRB-WB-S', basis: 'per-stack', qty: 1, when: { kind: 'wall', wall: 'stud' } },
+      { sku: 'QRB-WB-M', basis: 'per-stack', qty: 1, when: { kind: 'wall', wall: 'masonry' } },
+      // 48 V cables carry high current: the 50 mm² sets stop at 5 m, longer runs need sizing.
+      ...byRun('per-stack', [
+        ['QRB-CBL-LV50-015', 1.5],
+        ['QRB-CBL-LV50-020', 2],
+        ['QRB-CBL-LV50-030', 3],
+        ['QRB-CBL-LV50-050', 5],
+      ]),
       { sku: 'QRB-CCV-15', basis: 'per-stack', qty: 1, when: { kind: 'dvc-b-or-c' } },
       { sku: 'QRB-EL-16-15', basis: 'per-stack', qty: 1 },
+      // The range calls for a fused battery run: holder and fuse rather than an isolator alone.
+      { sku: 'QRB-ACC-FUSEHOLD', basis: 'per-system', qty: 1 },
+      { sku: 'QRB-ACC-FUSE250', basis: 'per-system', qty: 1 },
+      ...byRun('per-system', [
+        ['QRB-COMM-INV-2', 2],
+        ['QRB-COMM-INV-5', 5],
+      ]),
       { sku: 'QRB-CT-CAN', basis: 'per-system', qty: 1 },
-      { sku: 'QRB-LINK-1M', basis: 'per-stack', qty: 1, when: { kind: 'multi-stack' } },
+      { sku: 'QRB-LINK-1M', basis: 'per-stack-link', qty: 1 },
+      { sku: 'QRB-ACC-BUSBAR', basis: 'per-system', qty: 1, when: { kind: 'stacks-over-inputs' } },
+      { sku: 'QRB-ACC-SIGN', basis: 'per-system', qty: 1 },
+      ...siteRules({ bollard: 'HLM-ACC-BOLL', hood: 'QRB-ACC-HOOD', board: 'HLM-ACC-BOARD', seismic: 'QRB-ACC-SEISMIC' }),
       { sku: 'QRB-ACC-STRAP', basis: 'per-stack', qty: 1, when: { kind: 'height-over', mm: 1200 } },
     ],
   },
@@ -1400,13 +1478,28 @@ export const ranges: DemoRange[] = [
     rules: [
       { sku: 'TVP-SL48-FEET', basis: 'per-stack', qty: 4 },
       { sku: 'TVP-SL48-EC', basis: 'per-stack', qty: 1 },
-      { sku: 'TVP-WB-S', basis: 'per-n-modules', qty: 1, divisor: 3 },
+      // Stackline brackets include their fixings: the one that suits the wall.
+      { sku: 'TVP-WB-S', basis: 'per-n-modules', qty: 1, divisor: 3, when: { kind: 'wall', wall: 'stud' } },
+      { sku: 'TVP-WB-M', basis: 'per-n-modules', qty: 1, divisor: 3, when: { kind: 'wall', wall: 'masonry' } },
       { sku: 'TVP-SL48-SHROUD', basis: 'per-module', qty: 1 },
-      { sku: 'TVP-CBL-LV50-015', basis: 'per-stack', qty: 1 },
+      ...byRun('per-stack', [
+        ['TVP-CBL-LV50-015', 1.5],
+        ['TVP-CBL-LV50-030', 3],
+        ['TVP-CBL-LV50-050', 5],
+        ['TVP-CBL-LV50-100', 10],
+      ]),
       { sku: 'TVP-CCV-10', basis: 'per-stack', qty: 1, when: { kind: 'dvc-b-or-c' } },
       { sku: 'TVP-EL-16-15', basis: 'per-stack', qty: 1 },
+      { sku: 'TVP-ACC-ISO250', basis: 'per-system', qty: 1 },
+      ...byRun('per-system', [
+        ['TVP-COMM-INV-3', 3],
+        ['TVP-COMM-INV-10', 10],
+      ]),
       { sku: 'TVP-CT-CAN', basis: 'per-system', qty: 1 },
-      { sku: 'TVP-CMB-4', basis: 'per-system', qty: 1, when: { kind: 'multi-stack' } },
+      { sku: 'TVP-LINK-1M', basis: 'per-stack-link', qty: 1 },
+      { sku: 'TVP-CMB-4', basis: 'per-system', qty: 1, when: { kind: 'stacks-over-inputs' } },
+      { sku: 'TVP-ACC-SIGN', basis: 'per-system', qty: 1 },
+      ...siteRules({ bollard: 'TVP-ACC-BOLL', hood: 'TVP-ACC-HOOD', board: 'TVP-ACC-BOARD', seismic: 'QRB-ACC-SEISMIC' }),
       { sku: 'TVP-ACC-STRAP', basis: 'per-stack', qty: 1, when: { kind: 'height-over', mm: 1200 } },
     ],
   },
@@ -1428,13 +1521,29 @@ export const ranges: DemoRange[] = [
     rules: [
       { sku: 'QRB-RIDGE-FEET', basis: 'per-stack', qty: 4 },
       { sku: 'QRB-RIDGE-EC', basis: 'per-stack', qty: 1 },
-      { sku: 'QRB-WB-M', basis: 'per-stack', qty: 1 },
+      { sku: 'QRB-WB-S', basis: 'per-stack', qty: 1, when: { kind: 'wall', wall: 'stud' } },
+      { sku: 'QRB-WB-M', basis: 'per-stack', qty: 1, when: { kind: 'wall', wall: 'masonry' } },
       { sku: 'QRB-RIDGE-LINK', basis: 'per-module', qty: 1 },
-      { sku: 'QRB-CBL-HV6-030', basis: 'per-stack', qty: 1 },
+      ...byRun('per-stack', [
+        ['QRB-CBL-HV6-015', 1.5],
+        ['QRB-CBL-HV6-030', 3],
+        ['QRB-CBL-HV6-050', 5],
+        ['QRB-CBL-HV6-100', 10],
+      ]),
       { sku: 'QRB-CCV-15', basis: 'per-stack', qty: 1, when: { kind: 'dvc-b-or-c' } },
+      { sku: 'QRB-CDT-25', basis: 'per-metre-of-run', qty: 1, when: { kind: 'dvc-b-or-c' } },
       { sku: 'QRB-EL-6-15', basis: 'per-stack', qty: 1 },
+      { sku: 'HLM-ACC-ISO', basis: 'per-system', qty: 1 },
+      ...byRun('per-system', [
+        ['QRB-COMM-INV-2', 2],
+        ['QRB-COMM-INV-5', 5],
+        ['QRB-COMM-INV-10', 10],
+      ]),
       { sku: 'QRB-CT-485', basis: 'per-system', qty: 1 },
-      { sku: 'QRB-LINK-1M', basis: 'per-stack', qty: 1, when: { kind: 'multi-stack' } },
+      { sku: 'QRB-LINK-1M', basis: 'per-stack-link', qty: 1 },
+      { sku: 'QRB-ACC-HVJB', basis: 'per-system', qty: 1, when: { kind: 'stacks-over-inputs' } },
+      { sku: 'QRB-ACC-SIGN', basis: 'per-system', qty: 1 },
+      ...siteRules({ bollard: 'HLM-ACC-BOLL', hood: 'QRB-ACC-HOOD', board: 'HLM-ACC-BOARD', seismic: 'QRB-ACC-SEISMIC' }),
       { sku: 'QRB-ACC-STRAP', basis: 'per-stack', qty: 1, when: { kind: 'height-over', mm: 1200 } },
     ],
   },

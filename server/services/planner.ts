@@ -35,6 +35,7 @@ function unitFrom(p: PartRow): PlannerUnit {
     warrantedMwh: n('warrantedMwh'),
     roundTripEfficiencyPct: n('roundTripEfficiencyPct'),
     carriesCells,
+    ipRating: p.ipRating,
   };
 }
 
@@ -51,7 +52,28 @@ export function inverterFrom(p: PartRow): PlannerInverter & { parallelStacks: nu
   };
 }
 
-const plannerPart = (p: PartRow): PlannerPart => ({ sku: p.sku, name: p.name, category: p.category, packSize: p.packSize, massKg: p.massKg });
+/** The inverter with what the planner warns about (lifecycle) and prices (list price, ex GST). */
+function plannerInverterFrom(p: PartRow, successorSku: string | null): PlannerInverter {
+  return { ...inverterFrom(p), lifecycle: p.lifecycle, supersededBy: successorSku, listPriceCents: p.listPriceCents };
+}
+
+/** Metres one unit provides: the length attribute of cables and covers, 1 for goods sold by the metre. */
+function partLengthM(p: PartRow): number | null {
+  const length = (p.attributes as Record<string, unknown>).lengthM;
+  if (typeof length === 'number' && length > 0) return length;
+  return p.unit === 'm' ? 1 : null;
+}
+
+/** Mass is per sold pack, list price per sold pack ex GST; cost never leaves the server here. */
+const plannerPart = (p: PartRow): PlannerPart => ({
+  sku: p.sku,
+  name: p.name,
+  category: p.category,
+  packSize: p.packSize,
+  massKg: p.massKg,
+  lengthM: partLengthM(p),
+  listPriceCents: p.listPriceCents,
+});
 
 /** A range with every part its planner needs: controller, module, rule parts and compatible inverters. */
 async function readRange(db: Db, idOrCode: string) {
@@ -84,6 +106,7 @@ async function readRange(db: Db, idOrCode: string) {
     controller: unitFrom(controller),
     module: unitFrom(module),
     rules,
+    inverterSkus: inverterRows.map((x) => x.part.sku),
   };
   return { row: r, makerCode: row.makerCode, makerName: row.makerName, planner, parts: partsBySku, inverters: inverterRows.map((x) => x.part), controller, module };
 }
@@ -103,11 +126,19 @@ export interface PlannerDeps {
 export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS), onRangeChanged = async () => {} }: PlannerDeps) {
   const loadRange = (idOrCode: string) => rangeCache.get(idOrCode, () => readRange(db, idOrCode));
 
-  async function findInverter(sku: string) {
+  async function successorSku(p: PartRow, known: PartRow[]) {
+    if (!p.supersededById) return null;
+    const listed = known.find((k) => k.id === p.supersededById);
+    if (listed) return listed.sku;
+    const [row] = await db.select({ sku: parts.sku }).from(parts).where(eq(parts.id, p.supersededById));
+    return row?.sku ?? null;
+  }
+
+  async function findInverter(sku: string, known: PartRow[]) {
     const [p] = await db.select().from(parts).where(eq(parts.sku, sku.toUpperCase()));
     if (!p) throw new NotFoundError(`Inverter ${sku}`);
     if (p.category !== 'inverter') throw new ValidationError(`${p.sku} is not an inverter.`, { fields: [{ path: 'inverterSku', message: 'Choose an inverter.' }] });
-    return inverterFrom(p);
+    return plannerInverterFrom(p, await successorSku(p, known));
   }
 
   /** Available (on hand − reserved) per SKU and warehouse. */
@@ -134,10 +165,19 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
     const sku = input.inverterSku?.toUpperCase();
     const listed = sku ? loaded.inverters.find((p) => p.sku === sku) : undefined;
     const [inverter, stock] = await Promise.all([
-      listed ? inverterFrom(listed) : sku ? findInverter(sku) : null,
-      availability(Object.keys(loaded.parts)),
+      listed ? (listed.supersededById ? successorSku(listed, loaded.inverters).then((s) => plannerInverterFrom(listed, s)) : plannerInverterFrom(listed, null)) : sku ? findInverter(sku, loaded.inverters) : null,
+      availability([...Object.keys(loaded.parts), ...(sku && input.includeInverter ? [sku] : [])]),
     ]);
-    const result = planStack({ range: loaded.planner, parts: loaded.parts, modules: input.modules, targetUsableKwh: input.targetUsableKwh, inverter, stacks: input.stacks });
+    const result = planStack({
+      range: loaded.planner,
+      parts: loaded.parts,
+      modules: input.modules,
+      targetUsableKwh: input.targetUsableKwh,
+      inverter,
+      stacks: input.stacks,
+      site: input.site,
+      includeInverter: input.includeInverter,
+    });
     if (!result.ok) throw new ValidationError(result.error.message, { code: result.error.code, ...result.error.details });
     const p = result.plan;
     return {
@@ -251,7 +291,14 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
     async inverters(actor: Actor) {
       authorize(actor, 'catalogue.view');
       const rows = await db.select({ part: parts, makerName: makers.name }).from(parts).innerJoin(makers, eq(makers.id, parts.makerId)).where(and(eq(parts.category, 'inverter'), sql`${parts.archivedAt} is null`)).orderBy(asc(parts.name));
-      return rows.map(({ part, makerName }) => ({ ...inverterFrom(part), makerName, lifecycle: part.lifecycle }));
+      const skuById = new Map(rows.map(({ part }) => [part.id, part.sku]));
+      return rows.map(({ part, makerName }) => ({
+        ...inverterFrom(part),
+        makerName,
+        lifecycle: part.lifecycle,
+        supersededBy: part.supersededById ? (skuById.get(part.supersededById) ?? null) : null,
+        listPriceCents: part.listPriceCents,
+      }));
     },
 
     /** Saves a range's definition; a rule naming a part that does not exist cannot be saved. */

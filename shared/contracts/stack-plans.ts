@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { BomRulesSchema } from '../domain/bom-rules.ts';
+import { COUNTRIES, FLOORS, LOCATIONS, SiteInputSchema, WALLS } from '../domain/site.ts';
 import { CategoryCodeSchema } from './part-attributes.ts';
 import { RangeSummarySchema } from './parts.ts';
 
@@ -10,10 +11,22 @@ export const StackPlanRequestSchema = z
     targetUsableKwh: z.number().positive('The target usable energy must be above 0 kWh.').max(2000, 'Targets above 2,000 kWh are not home systems.').optional(),
     inverterSku: z.string().trim().min(1).max(64).nullable().optional(),
     stacks: z.number().int().min(1, 'At least 1 stack.').max(16, 'At most 16 stacks.').optional(),
+    /** The site; anything left out is assumed, and the answer says what. */
+    site: SiteInputSchema.optional(),
+    /** Put the chosen inverter on the BOM as a line of its own. */
+    includeInverter: z.boolean().optional(),
   })
   .refine((r) => r.modules !== undefined || r.targetUsableKwh !== undefined, {
     path: ['modules'],
     message: 'Give a module count per stack or a target usable energy.',
+  })
+  .refine((r) => r.modules === undefined || r.targetUsableKwh === undefined, {
+    path: ['targetUsableKwh'],
+    message: 'Give a module count per stack or a target usable energy, not both: one of them would be ignored.',
+  })
+  .refine((r) => !r.includeInverter || !!r.inverterSku, {
+    path: ['includeInverter'],
+    message: 'Choose an inverter to include it on the bill of materials.',
   });
 export type StackPlanRequest = z.infer<typeof StackPlanRequestSchema>;
 
@@ -29,6 +42,13 @@ export const PlanBomLineSchema = z.object({
   packs: z.number(),
   reason: z.string(),
   rules: z.array(z.string()),
+  /** The range's rules (numbered from 1) behind the line; empty for the stack's units and the inverter. */
+  ruleNumbers: z.array(z.number()),
+  /** Metres the line provides (cables, covers, conduit). */
+  lengthM: z.number().optional(),
+  /** Ex GST list price of one sold pack, in cents. Installers see prices, never cost. */
+  unitPriceCents: z.number().nullable(),
+  lineTotalCents: z.number().nullable(),
   available: z.number(),
   availability: z.array(z.object({ warehouse: z.string(), available: z.number() })),
   short: z.number(),
@@ -50,13 +70,16 @@ export const StackPlanSchema = z.object({
   minVoltage: z.number(),
   capacityAh: z.number(),
   dvc: z.enum(['A', 'B', 'C']),
-  inverterFit: z.object({ fits: z.boolean(), reason: z.string().optional(), code: z.string().optional() }).nullable(),
+  inverterFit: z.object({ fits: z.boolean(), reason: z.string().optional(), code: z.string().optional(), warnings: z.array(z.string()).optional() }).nullable(),
   heightMm: z.number(),
   massKg: z.number(),
   footprintM2: z.number(),
   floorLoadKpa: z.number(),
+  footLoadKn: z.number(),
   throughputMwh: z.number().nullable(),
   throughputAssumptions: z.array(z.string()),
+  warrantedThroughputMwh: z.number().nullable(),
+  warrantedThroughputNote: z.string().nullable(),
   equivalentCycles: z.number().nullable(),
   yearsAtOneCyclePerDay: z.number().nullable(),
   roundTripEfficiencyPct: z.number().nullable(),
@@ -68,6 +91,18 @@ export const StackPlanSchema = z.object({
   units: z.array(z.object({ kind: z.enum(['controller', 'module', 'feet']), sku: z.string().nullable(), name: z.string(), heightMm: z.number(), carriesCells: z.boolean() })),
   /** The widest unit, for drawing the stack to scale. */
   unitWidthMm: z.number(),
+  /** The site planned for, defaults filled in. */
+  site: z.object({
+    cableRunM: z.number(),
+    wall: z.enum(WALLS),
+    location: z.enum(LOCATIONS),
+    sharesHabitableWall: z.boolean(),
+    floor: z.enum(FLOORS),
+    country: z.enum(COUNTRIES),
+  }),
+  /** Site facts assumed because the request left them out. */
+  siteAssumed: z.array(z.string()),
+  totals: z.object({ gstMethod: z.enum(['per-line', 'per-invoice']), subtotalCents: z.number(), gstCents: z.number(), totalCents: z.number(), unpricedLines: z.number() }),
 });
 export type StackPlanResult = z.infer<typeof StackPlanSchema>;
 
@@ -127,6 +162,8 @@ export const InverterOptionSchema = z.object({
   parallelStacks: z.number().nullable(),
   maxBatteryKwh: z.number().nullable(),
   lifecycle: z.string(),
+  supersededBy: z.string().nullable(),
+  listPriceCents: z.number().nullable(),
 });
 
 /** Everything the client needs to run the shared planner itself (the range editor's live preview). */
@@ -137,8 +174,19 @@ export const RangeDetailSchema = RangeSummarySchema.extend({
   rules: BomRulesSchema,
   planner: z.object({
     range: z.record(z.string(), z.unknown()),
-    parts: z.record(z.string(), z.object({ sku: z.string(), name: z.string(), category: CategoryCodeSchema.or(z.string()), packSize: z.number(), massKg: z.number().nullable().optional() })),
-    inverters: z.array(InverterOptionSchema.omit({ makerName: true, lifecycle: true })),
+    parts: z.record(
+      z.string(),
+      z.object({
+        sku: z.string(),
+        name: z.string(),
+        category: CategoryCodeSchema.or(z.string()),
+        packSize: z.number(),
+        massKg: z.number().nullable().optional(),
+        lengthM: z.number().nullable().optional(),
+        listPriceCents: z.number().nullable().optional(),
+      }),
+    ),
+    inverters: z.array(InverterOptionSchema.omit({ makerName: true, lifecycle: true, supersededBy: true, listPriceCents: true })),
   }),
   abilities: z.object({ edit: z.boolean() }),
 });

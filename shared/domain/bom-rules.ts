@@ -2,15 +2,28 @@
 // conditions that a product manager can edit and the planner can explain line by line.
 import { z } from 'zod';
 import { DVC_A_MAX_V, type Dvc } from './energy.ts';
+import { COUNTRIES, COUNTRY_LABELS, DEFAULT_SITE, FLOORS, FLOOR_LABELS, LOCATIONS, LOCATION_LABELS, MAX_CABLE_RUN_M, WALLS, WALL_LABELS, type Site } from './site.ts';
 
-export const BOM_BASES = ['per-system', 'per-stack', 'per-module', 'per-cell-unit', 'per-n-modules'] as const;
+export const BOM_BASES = ['per-system', 'per-stack', 'per-module', 'per-cell-unit', 'per-n-modules', 'per-stack-link', 'per-metre-of-run'] as const;
 export type BomBasis = (typeof BOM_BASES)[number];
+
+const runMetres = z.number().min(0).max(MAX_CABLE_RUN_M);
 
 export const BomConditionSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('always') }),
   z.object({ kind: z.literal('dvc-b-or-c') }),
   z.object({ kind: z.literal('multi-stack') }),
   z.object({ kind: z.literal('height-over'), mm: z.number().int().positive() }),
+  // Site and inverter: what the installer told the planner about the job.
+  z.object({ kind: z.literal('wall'), wall: z.enum(WALLS) }),
+  z.object({ kind: z.literal('location'), location: z.enum(LOCATIONS) }),
+  z.object({ kind: z.literal('shares-habitable-wall') }),
+  z.object({ kind: z.literal('floor'), floor: z.enum(FLOORS) }),
+  z.object({ kind: z.literal('country'), country: z.enum(COUNTRIES) }),
+  z.object({ kind: z.literal('stacks-over-inputs') }),
+  z
+    .object({ kind: z.literal('run-within'), overM: runMetres, upToM: runMetres })
+    .refine((c) => c.upToM > c.overM, { message: 'The upper length must be above the lower one.', path: ['upToM'] }),
 ]);
 export type BomCondition = z.infer<typeof BomConditionSchema>;
 
@@ -31,7 +44,13 @@ export type BomRuleInput = z.input<typeof BomRuleSchema>;
 
 export const BomRulesSchema = z.array(BomRuleSchema).max(100);
 
-/** What a rule can look at about the system being planned. */
+/** The inverter as a rule sees it: how many stacks it takes directly. */
+export interface BomInverter {
+  name: string;
+  batteryInputs: number;
+}
+
+/** What a rule can look at about the system being planned, its site and its inverter. */
 export interface BomContext {
   stacks: number;
   modulesPerStack: number;
@@ -39,6 +58,10 @@ export interface BomContext {
   cellUnitsPerStack: number;
   dvc: Dvc;
   heightMm: number;
+  /** The site with defaults filled in; the defaults when not given. */
+  site?: Site;
+  /** The chosen inverter; with none chosen a rule assumes one battery input. */
+  inverter?: BomInverter | null;
 }
 
 export interface BomPart {
@@ -46,7 +69,12 @@ export interface BomPart {
   name: string;
   category: string;
   packSize: number;
+  /** Per sold pack: a pack of 4 feet weighing 1.6 kg has massKg 1.6. */
   massKg?: number | null;
+  /** Metres one unit provides (cable sets, covers, conduit sold by the metre or in lengths). */
+  lengthM?: number | null;
+  /** List price of one sold pack, ex GST, in cents. */
+  listPriceCents?: number | null;
 }
 
 /** One reason to order some units of a part, before merging and pack rounding. */
@@ -54,6 +82,8 @@ export interface BomDemand {
   sku: string;
   qty: number;
   reason: string;
+  /** The rule's number in the range (from 1), when a rule asked for it. */
+  ruleNumber?: number;
 }
 
 export interface BomLine {
@@ -70,6 +100,10 @@ export interface BomLine {
   reason: string;
   /** The reason each contributing rule gave. */
   rules: string[];
+  /** The range's rules (numbered from 1) that put this line here; empty for the stack's own units. */
+  ruleNumbers: number[];
+  /** Metres the line provides, for cables, covers and conduit. */
+  lengthM?: number;
 }
 
 const numberFormat = new Intl.NumberFormat('en-AU');
@@ -82,7 +116,15 @@ function timesStacks(ctx: BomContext): string {
   return ctx.stacks > 1 ? ` × ${count(ctx.stacks, 'stack')}` : '';
 }
 
+const metreFormat = new Intl.NumberFormat('en-AU', { maximumFractionDigits: 2 });
+const m = (n: number) => `${metreFormat.format(n)} m`;
+
+const siteOf = (ctx: BomContext): Site => ctx.site ?? DEFAULT_SITE;
+/** Stacks the inverter takes directly; with no inverter chosen, one input is assumed (the common case). */
+const inputsOf = (ctx: BomContext): number => ctx.inverter?.batteryInputs ?? 1;
+
 export function conditionHolds(condition: BomCondition, ctx: BomContext): boolean {
+  const site = siteOf(ctx);
   switch (condition.kind) {
     case 'always':
       return true;
@@ -92,14 +134,29 @@ export function conditionHolds(condition: BomCondition, ctx: BomContext): boolea
       return ctx.stacks > 1;
     case 'height-over':
       return ctx.heightMm > condition.mm;
+    case 'wall':
+      return site.wall === condition.wall;
+    case 'location':
+      return site.location === condition.location;
+    case 'shares-habitable-wall':
+      return site.sharesHabitableWall;
+    case 'floor':
+      return site.floor === condition.floor;
+    case 'country':
+      return site.country === condition.country;
+    case 'stacks-over-inputs':
+      return ctx.stacks > inputsOf(ctx);
+    case 'run-within':
+      return site.cableRunM > condition.overM && site.cableRunM <= condition.upToM;
   }
 }
 
 /** The catalogue's category code for cable-protection covers. */
 export const CABLE_COVER_CATEGORY = 'cable-cover';
 
+/** Covers, and conduit sold by length, protect cables: their DVC reason says why. */
 function isCableProtection(part: BomPart | undefined): boolean {
-  return part?.category === CABLE_COVER_CATEGORY;
+  return part?.category === CABLE_COVER_CATEGORY || (part?.category === 'accessory' && part.lengthM != null);
 }
 
 /** Why a condition applies, in the installer's terms; null for rules that always apply. */
@@ -115,13 +172,76 @@ export function describeCondition(condition: BomCondition, ctx: BomContext, part
       return `${count(ctx.stacks, 'stack')} in parallel`;
     case 'height-over':
       return `stack ${numberFormat.format(ctx.heightMm)} mm tall, over ${numberFormat.format(condition.mm)} mm`;
+    case 'wall':
+      return `on a ${WALL_LABELS[condition.wall]}`;
+    case 'location':
+      return LOCATION_LABELS[condition.location];
+    case 'shares-habitable-wall':
+      return 'the wall is shared with a habitable room: a non-combustible barrier behind the battery';
+    case 'floor':
+      return `on a ${FLOOR_LABELS[condition.floor]}`;
+    case 'country':
+      return `installed in ${COUNTRY_LABELS[condition.country]}`;
+    case 'stacks-over-inputs': {
+      const inverter = ctx.inverter ? `${ctx.inverter.name} has ${count(ctx.inverter.batteryInputs, 'battery input')}` : 'no inverter chosen, so 1 battery input assumed';
+      return `${count(ctx.stacks, 'stack')} and ${inverter}: the stacks are joined before the inverter`;
+    }
+    case 'run-within': {
+      const run = siteOf(ctx).cableRunM;
+      return condition.overM > 0
+        ? `${m(run)} cable run, over ${m(condition.overM)} and up to ${m(condition.upToM)}`
+        : `${m(run)} cable run, up to ${m(condition.upToM)}`;
+    }
+  }
+}
+
+/** The condition in the range editor's words, without a system to apply it to. */
+export function conditionLabel(condition: BomCondition): string {
+  switch (condition.kind) {
+    case 'always':
+      return 'always';
+    case 'dvc-b-or-c':
+      return `battery above ${DVC_A_MAX_V} V DC (DVC-B or C)`;
+    case 'multi-stack':
+      return 'more than one stack';
+    case 'height-over':
+      return `stack taller than ${numberFormat.format(condition.mm)} mm`;
+    case 'wall':
+      return `on a ${WALL_LABELS[condition.wall]}`;
+    case 'location':
+      return LOCATION_LABELS[condition.location];
+    case 'shares-habitable-wall':
+      return 'wall shared with a habitable room';
+    case 'floor':
+      return `on a ${FLOOR_LABELS[condition.floor]}`;
+    case 'country':
+      return `in ${COUNTRY_LABELS[condition.country]}`;
+    case 'stacks-over-inputs':
+      return "more stacks than the inverter's battery inputs";
+    case 'run-within':
+      return condition.overM > 0 ? `cable run over ${m(condition.overM)}, up to ${m(condition.upToM)}` : `cable run up to ${m(condition.upToM)}`;
   }
 }
 
 /** Quantity a rule calls for and the arithmetic behind it, ignoring its condition. */
-export function basisQuantity(rule: BomRule, ctx: BomContext): { qty: number; reason: string } {
+export function basisQuantity(rule: BomRule, ctx: BomContext, part?: BomPart): { qty: number; reason: string } {
   const { qty } = rule;
   switch (rule.basis) {
+    case 'per-stack-link': {
+      // A daisy chain: each stack links to the next, so one link fewer than stacks.
+      const links = Math.max(0, ctx.stacks - 1);
+      return { qty: qty * links, reason: `${qty} per link between stacks: ${count(ctx.stacks, 'stack')} → ${count(links, 'link')}` };
+    }
+    case 'per-metre-of-run': {
+      // Metres needed over the whole run, rounded up to what one unit provides (1 m, a 4 m length…).
+      const run = siteOf(ctx).cableRunM;
+      const metresNeeded = qty * run;
+      const each = part?.lengthM && part.lengthM > 0 ? part.lengthM : 1;
+      const units = Math.ceil(metresNeeded / each - 1e-9);
+      const need = qty === 1 ? `the whole ${m(run)} cable run` : `${qty} × the ${m(run)} cable run = ${m(metresNeeded)}`;
+      const sold = each === 1 ? `${count(units, 'metre')}, rounded up to whole metres` : `in ${m(each)} lengths → ${units}`;
+      return { qty: units, reason: `${need}: ${sold}` };
+    }
     case 'per-system':
       return { qty, reason: `${qty} per system` };
     case 'per-stack':
@@ -152,11 +272,32 @@ export function basisQuantity(rule: BomRule, ctx: BomContext): { qty: number; re
 }
 
 /** What one rule asks for in this system, or null when its condition does not hold. */
-export function applyBomRule(rule: BomRule, ctx: BomContext, part?: BomPart): BomDemand | null {
+export function applyBomRule(rule: BomRule, ctx: BomContext, part?: BomPart, ruleNumber?: number): BomDemand | null {
   if (!conditionHolds(rule.when, ctx)) return null;
-  const { qty, reason } = basisQuantity(rule, ctx);
+  const { qty, reason } = basisQuantity(rule, ctx, part);
   const condition = describeCondition(rule.when, ctx, part);
-  return { sku: rule.sku, qty, reason: condition ? `${reason} — ${condition}` : reason };
+  const demand: BomDemand = { sku: rule.sku, qty, reason: condition ? `${reason} — ${condition}` : reason };
+  if (ruleNumber !== undefined) demand.ruleNumber = ruleNumber;
+  return demand;
+}
+
+/**
+ * Where a range offers parts in lengths to choose from by cable run (rules with a run-within
+ * condition), one of them must reach the run; otherwise the plan cannot be built as asked.
+ * Returns, per part category with such rules, the longest run they cover when none holds.
+ */
+export function unreachedRuns(rules: BomRule[], ctx: BomContext, partFor: (sku: string) => BomPart): { category: string; longestM: number; names: string[] }[] {
+  const byCategory = new Map<string, { holds: boolean; longestM: number; names: string[] }>();
+  for (const rule of rules) {
+    if (rule.when.kind !== 'run-within') continue;
+    const part = partFor(rule.sku);
+    const entry = byCategory.get(part.category) ?? { holds: false, longestM: 0, names: [] };
+    entry.holds ||= conditionHolds(rule.when, ctx);
+    entry.longestM = Math.max(entry.longestM, rule.when.upToM);
+    entry.names.push(part.name);
+    byCategory.set(part.category, entry);
+  }
+  return [...byCategory].filter(([, e]) => !e.holds).map(([category, e]) => ({ category, longestM: e.longestM, names: e.names }));
 }
 
 /** Rule skus with no matching part, in rule order without repeats. */
@@ -179,14 +320,15 @@ function packNote(qtyNeeded: number, packSize: number, packs: number): string | 
  * Lines keep the order in which each part was first asked for.
  */
 export function mergeAndPack(demands: BomDemand[], partFor: (sku: string) => BomPart): BomLine[] {
-  const bySku = new Map<string, { qty: number; rules: string[] }>();
+  const bySku = new Map<string, { qty: number; rules: string[]; ruleNumbers: number[] }>();
   for (const demand of demands) {
-    const entry = bySku.get(demand.sku) ?? { qty: 0, rules: [] };
+    const entry = bySku.get(demand.sku) ?? { qty: 0, rules: [], ruleNumbers: [] };
     entry.qty += demand.qty;
     entry.rules.push(demand.reason);
+    if (demand.ruleNumber !== undefined) entry.ruleNumbers.push(demand.ruleNumber);
     bySku.set(demand.sku, entry);
   }
-  return [...bySku].map(([sku, { qty, rules }]) => {
+  return [...bySku].map(([sku, { qty, rules, ruleNumbers }]) => {
     const part = partFor(sku);
     // A pack size below 1 would be bad data; treating it as loose units never under-orders.
     const packSize = Math.max(1, Math.floor(part.packSize));
@@ -195,7 +337,7 @@ export function mergeAndPack(demands: BomDemand[], partFor: (sku: string) => Bom
     if (rules.length > 1) sentences.push(`${qty} in all`);
     const note = packNote(qty, packSize, packs);
     if (note) sentences.push(note);
-    return {
+    const line: BomLine = {
       sku,
       name: part.name,
       category: part.category,
@@ -205,6 +347,9 @@ export function mergeAndPack(demands: BomDemand[], partFor: (sku: string) => Bom
       packs,
       reason: sentences.join('; '),
       rules,
+      ruleNumbers,
     };
+    if (part.lengthM != null && part.lengthM > 0) line.lengthM = Number((part.lengthM * packs * packSize).toFixed(3));
+    return line;
   });
 }
