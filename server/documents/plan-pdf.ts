@@ -1,5 +1,7 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import type { StackPlanResult } from '@shared/contracts/stack-plans.ts';
+import { formatCents } from '@shared/domain/money.ts';
+import { COUNTRY_LABELS, FLOOR_LABELS, LOCATION_LABELS, WALL_LABELS } from '@shared/domain/site.ts';
 
 const A4: [number, number] = [595.28, 841.89];
 const MARGIN = 42;
@@ -7,7 +9,7 @@ const INK = rgb(0.11, 0.14, 0.19);
 const GREY = rgb(0.35, 0.38, 0.42);
 
 /** The standard PDF fonts speak WinAnsi only: spell out the few symbols they lack. */
-function winAnsi(text: string) {
+export function winAnsi(text: string) {
   return text
     .replace(/≤/g, '<=')
     .replace(/≥/g, '>=')
@@ -39,13 +41,26 @@ export async function renderPlanPdf(plan: StackPlanResult, meta: { title: string
   };
   const text = (p: PDFPage, s: string, x: number, yy: number, size: number, font: PDFFont = regular, color = INK) =>
     p.drawText(winAnsi(s), { x, y: yy, size, font, color });
+  /** Lines that fit `width`: words wrap, and a word wider than the line is broken, never cut off. */
   const wrap = (s: string, width: number, size: number, font: PDFFont = regular) => {
-    const words = winAnsi(s).split(/\s+/);
+    const fits = (t: string) => font.widthOfTextAtSize(t, size) <= width;
+    const words = winAnsi(s).split(/\s+/).filter(Boolean).flatMap((w) => {
+      if (fits(w)) return [w];
+      const pieces: string[] = [];
+      let piece = '';
+      for (const ch of w) {
+        if (piece && !fits(piece + ch)) {
+          pieces.push(piece);
+          piece = ch;
+        } else piece += ch;
+      }
+      return piece ? [...pieces, piece] : pieces;
+    });
     const lines: string[] = [];
     let line = '';
     for (const w of words) {
       const next = line ? `${line} ${w}` : w;
-      if (font.widthOfTextAtSize(next, size) > width && line) {
+      if (!fits(next) && line) {
         lines.push(line);
         line = w;
       } else line = next;
@@ -53,6 +68,8 @@ export async function renderPlanPdf(plan: StackPlanResult, meta: { title: string
     if (line) lines.push(line);
     return lines;
   };
+  const money = (cents: number | null) => (cents == null ? '—' : formatCents(cents));
+  const right = (p: PDFPage, s: string, xRight: number, yy: number, size: number, font: PDFFont = regular) => text(p, s, xRight - font.widthOfTextAtSize(winAnsi(s), size), yy, size, font);
 
   text(page, 'Stackyard · stack plan', MARGIN, y, 9, regular, GREY);
   text(page, meta.date.toLocaleDateString('en-AU', { day: 'numeric', month: 'short', year: 'numeric' }), A4[0] - MARGIN - 80, y, 9, regular, GREY);
@@ -69,8 +86,13 @@ export async function renderPlanPdf(plan: StackPlanResult, meta: { title: string
     ['DC voltage class', `DVC-${plan.dvc}`],
     ['Inverter', plan.inverterFit ? (plan.inverterFit.fits ? `${plan.inverterSku}: fits its battery window` : `${plan.inverterSku}: does not fit. ${plan.inverterFit.reason ?? ''}`) : 'none chosen'],
     ['Height, mass', `${num(plan.heightMm, 0)} mm, ${num(plan.massKg)} kg`],
-    ['Footprint, floor load', `${num(plan.footprintM2, 3)} m², ${num(plan.floorLoadKpa, 2)} kPa`],
-    ['Lifetime throughput', plan.throughputMwh === null ? 'not given' : `${num(plan.throughputMwh)} MWh (≈ ${num(plan.equivalentCycles, 0)} full cycles)`],
+    ['Footprint, floor load', `${num(plan.footprintM2, 3)} m², ${num(plan.floorLoadKpa, 2)} kPa, ${num(plan.footLoadKn, 2)} kN per foot`],
+    ['Throughput (estimate)', plan.throughputMwh === null ? 'not known' : `${num(plan.throughputMwh)} MWh (≈ ${num(plan.equivalentCycles, 0)} full cycles): usable × rated cycles × mean state of health`],
+    ['Throughput (warranted)', plan.warrantedThroughputMwh === null ? 'the maker states none' : `${num(plan.warrantedThroughputMwh)} MWh: ${plan.warrantedThroughputNote ?? ''}`],
+    [
+      'Site',
+      `${num(plan.site.cableRunM)} m cable run; ${WALL_LABELS[plan.site.wall]}; ${LOCATION_LABELS[plan.site.location]}; ${plan.site.sharesHabitableWall ? 'wall shared with a habitable room' : 'wall not shared with a habitable room'}; ${FLOOR_LABELS[plan.site.floor]}; ${COUNTRY_LABELS[plan.site.country]}${plan.siteAssumed.length ? ` (assumed, not said: ${plan.siteAssumed.join(', ')})` : ''}`,
+    ],
   ];
   for (const [k, v] of figures) {
     text(page, k, MARGIN, y, 10, bold);
@@ -82,24 +104,56 @@ export async function renderPlanPdf(plan: StackPlanResult, meta: { title: string
   y -= 10;
   text(page, 'Bill of materials', MARGIN, y, 13, bold);
   y -= 16;
-  const cols = [MARGIN, MARGIN + 95, MARGIN + 300, MARGIN + 340, MARGIN + 380];
-  const header = ['SKU', 'Part', 'Qty', 'Packs', 'Why'];
-  header.forEach((h, i) => text(page, h, cols[i]!, y, 9, bold));
-  y -= 4;
-  page.drawLine({ start: { x: MARGIN, y }, end: { x: A4[0] - MARGIN, y }, thickness: 0.6, color: INK });
-  y -= 12;
+  // SKU | Part | Qty | Packs | Unit price | Line total (right-aligned) | Why
+  const x = { sku: MARGIN, part: MARGIN + 88, qty: MARGIN + 218, packs: MARGIN + 246, unitRight: MARGIN + 326, totalRight: MARGIN + 384, why: MARGIN + 392 };
+  const whyWidth = A4[0] - MARGIN - x.why;
+  const header = () => {
+    text(page, 'SKU', x.sku, y, 8, bold);
+    text(page, 'Part', x.part, y, 8, bold);
+    text(page, 'Qty', x.qty, y, 8, bold);
+    text(page, 'Packs', x.packs, y, 8, bold);
+    right(page, 'Unit ex GST', x.unitRight, y, 8, bold);
+    right(page, 'Total ex GST', x.totalRight, y, 8, bold);
+    text(page, 'Why', x.why, y, 8, bold);
+    y -= 4;
+    page.drawLine({ start: { x: MARGIN, y }, end: { x: A4[0] - MARGIN, y }, thickness: 0.6, color: INK });
+    y -= 11;
+  };
+  header();
   for (const line of plan.bom) {
-    const why = wrap(line.reason, A4[0] - MARGIN - cols[4]!, 8);
-    const name = wrap(line.name, cols[2]! - cols[1]! - 6, 9);
-    const rows = Math.max(why.length, name.length);
-    newPageIfNeeded(rows * 11 + 6);
-    text(page, line.sku, cols[0]!, y, 8.5, regular);
-    name.forEach((l, i) => text(page, l, cols[1]!, y - i * 11, 9));
-    text(page, String(line.qtyUnits), cols[2]!, y, 9);
-    text(page, `${line.packs} × ${line.packSize}`, cols[3]!, y, 9);
-    why.forEach((l, i) => text(page, l, cols[4]!, y - i * 11, 8, regular, GREY));
-    y -= rows * 11 + 5;
+    const rules = line.ruleNumbers.length ? `${line.ruleNumbers.length === 1 ? 'Rule' : 'Rules'} ${line.ruleNumbers.join(', ')}: ` : '';
+    const why = wrap(rules + line.reason, whyWidth, 7);
+    const name = wrap(line.name, x.qty - x.part - 6, 8);
+    const sku = wrap(line.sku, x.part - x.sku - 4, 7.5);
+    const qty = line.lengthM != null ? [String(line.qtyUnits), `${num(line.lengthM)} m`] : [String(line.qtyUnits)];
+    const rows = Math.max(why.length, name.length, sku.length, qty.length);
+    if (y - (rows * 9 + 6) < MARGIN) {
+      newPageIfNeeded(Number.POSITIVE_INFINITY);
+      header();
+    }
+    sku.forEach((l, i) => text(page, l, x.sku, y - i * 9, 7.5));
+    name.forEach((l, i) => text(page, l, x.part, y - i * 9, 8));
+    qty.forEach((l, i) => text(page, l, x.qty, y - i * 9, 8));
+    text(page, `${line.packs} × ${line.packSize}`, x.packs, y, 8);
+    right(page, money(line.unitPriceCents), x.unitRight, y, 8);
+    right(page, money(line.lineTotalCents), x.totalRight, y, 8);
+    why.forEach((l, i) => text(page, l, x.why, y - i * 9, 7, regular, GREY));
+    y -= rows * 9 + 5;
   }
+  newPageIfNeeded(48);
+  page.drawLine({ start: { x: x.part, y: y + 2 }, end: { x: x.totalRight, y: y + 2 }, thickness: 0.4, color: GREY });
+  y -= 10;
+  for (const [label, cents, font] of [
+    ['Subtotal (ex GST)', plan.totals.subtotalCents, regular],
+    ['GST 10 %', plan.totals.gstCents, regular],
+    ['Total (inc GST)', plan.totals.totalCents, bold],
+  ] as const) {
+    right(page, label, x.unitRight, y, 9, font);
+    right(page, formatCents(cents), x.totalRight, y, 9, font);
+    y -= 12;
+  }
+  text(page, `List prices${plan.totals.unpricedLines ? `; ${plan.totals.unpricedLines} line(s) without a price left out` : ''}. GST worked out on the total.`, x.part, y, 7.5, regular, GREY);
+  y -= 12;
 
   y -= 8;
   newPageIfNeeded(40);

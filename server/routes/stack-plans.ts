@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { InverterOptionSchema, RangeDetailSchema, RangeInputSchema, SavedPlanSchema, SavePlanSchema, StackPlanRequestSchema, StackPlanSchema, type StackPlanResult } from '@shared/contracts/stack-plans.ts';
 import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
 import { sendCsv } from '../http/csv.ts';
+import { centsToDecimalString } from '@shared/domain/money.ts';
 import type { Response } from 'express';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../app.ts';
@@ -11,21 +12,25 @@ import { presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.
 const IdParams = z.object({ id: z.string().min(1).max(64) });
 
 function sendBomCsv(res: Response, plan: StackPlanResult, fileName: string) {
-  sendCsv(
-    res,
-    plan.bom.map((l) => ({
-      SKU: l.sku,
-      Part: l.name,
-      Category: CATEGORY_LABELS[l.category as CategoryCode] ?? l.category,
-      'Qty (units)': l.qtyUnits,
-      'Pack size': l.packSize,
-      Packs: l.packs,
-      Available: l.available,
-      Short: l.short,
-      Why: l.reason,
-    })),
-    fileName,
-  );
+  const money = (cents: number | null) => (cents == null ? '' : centsToDecimalString(cents));
+  const lines = plan.bom.map((l) => ({
+    SKU: l.sku,
+    Part: l.name,
+    Category: CATEGORY_LABELS[l.category as CategoryCode] ?? l.category,
+    'Qty (units)': l.qtyUnits,
+    'Pack size': l.packSize,
+    Packs: l.packs,
+    'Length (m)': l.lengthM ?? '',
+    'Unit price ex GST': money(l.unitPriceCents),
+    'Line total ex GST': money(l.lineTotalCents),
+    Available: l.available,
+    Short: l.short,
+    Rules: l.ruleNumbers.join(' '),
+    Why: l.reason,
+  }));
+  // The totals follow the lines, in the line-total column, so a spreadsheet sums what we did.
+  const total = (label: string, cents: number) => ({ ...Object.fromEntries(Object.keys(lines[0] ?? {}).map((k) => [k, ''])), Part: label, 'Line total ex GST': money(cents) });
+  sendCsv(res, [...lines, total('Subtotal ex GST', plan.totals.subtotalCents), total('GST 10 %', plan.totals.gstCents), total('Total inc GST', plan.totals.totalCents)], fileName);
 }
 
 async function sendPlanPdf(res: Response, plan: StackPlanResult, title: string, fileName: string, preparedFor?: string) {

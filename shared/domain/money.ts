@@ -79,3 +79,8 @@ export function formatCents(cents: number, locale = 'en-AU', currency = 'AUD'): 
   // and Intl then rounds for display; no arithmetic happens on the result.
   return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(cents / 100);
 }
+
+/** Cents as a plain decimal amount for files, e.g. 123450 → "1234.50" (no symbol, no grouping). */
+export function centsToDecimalString(cents: number): string {
+  return toDecimal(cents, 'The amount').dividedBy(100).toFixed(2);
+}

@@ -862,10 +862,11 @@ function sizeForTarget(req: PlanRequest, target: number): PlanResult {
   const fittingAll = all.filter((l) => layoutFit(l, inverter).fits);
   const capped = fittingAll.reduce<Layout | null>((best, l) => (!best || l.usableKwh > best.usableKwh ? l : best), null);
   if (capped) {
+    const smallest = layoutFit(reaching[0], inverter);
     return fail(
       'target_unreachable',
-      `With ${inverter.name}, the most ${range.name} reaches is ${fmt(roundTo(capped.usableKwh))} kWh usable (${describeLayout(capped)}); you asked for ${fmt(target)} kWh. Choose an inverter that takes more, or lower the target.`,
-      { targetUsableKwh: target, maxUsableKwh: roundTo(capped.usableKwh), cappedBy: inverter.sku, reason: layoutFit(reaching[0], inverter).code },
+      `With ${inverter.name}, the most ${range.name} reaches is ${fmt(roundTo(capped.usableKwh))} kWh usable (${describeLayout(capped)}); you asked for ${fmt(target)} kWh. The smallest layout that reaches it (${describeLayout(reaching[0])}) does not fit: ${lowerFirst(smallest.reason ?? '')} Choose an inverter that takes more, or lower the target.`,
+      { targetUsableKwh: target, maxUsableKwh: roundTo(capped.usableKwh), cappedBy: inverter.sku, reason: smallest.code },
     );
   }
 

@@ -59,7 +59,8 @@ export const PART_SKUS = {
 
 export function tidewellParts(overrides: Record<string, Partial<PlannerPart>> = {}): Record<string, PlannerPart> {
   const parts: PlannerPart[] = [
-    { sku: PART_SKUS.feet, name: 'Adjustable foot', category: 'feet', packSize: 4, massKg: 0.5 },
+    // Mass is per sold pack, as in the catalogue: a pack of 4 feet at 0.5 kg each weighs 2 kg.
+    { sku: PART_SKUS.feet, name: 'Adjustable feet, pack of 4', category: 'feet', packSize: 4, massKg: 2 },
     { sku: PART_SKUS.endCap, name: 'Stack end cap', category: 'end-cap', packSize: 1, massKg: 0.2 },
     { sku: PART_SKUS.terminator, name: 'Comms terminator', category: 'comms-terminator', packSize: 1, massKg: 0.05 },
     { sku: PART_SKUS.bracket, name: 'Wall bracket', category: 'wall-bracket', packSize: 1, massKg: 1 },

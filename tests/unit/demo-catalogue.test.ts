@@ -226,9 +226,9 @@ describe('demo ranges', () => {
     expect(parallel.length).toBeGreaterThanOrEqual(2);
     for (const r of parallel) expect(voltsOf(r, r.maxModules).max, r.code).toBeLessThanOrEqual(60);
     expect(parallel.some((r) => r.maxModules === 6 && r.maxStacks === 3)).toBe(true);
-    // (c) brackets per 3 modules and a combiner when multi-stack.
+    // (c) brackets per 3 modules and a combiner when there are more stacks than inverter inputs.
     expect(ranges.some((r) => r.rules.some((x) => x.basis === 'per-n-modules' && x.divisor === 3))).toBe(true);
-    expect(ranges.some((r) => r.rules.some((x) => x.when?.kind === 'multi-stack' && /combiner/i.test(part(x.sku).name)))).toBe(true);
+    expect(ranges.some((r) => r.rules.some((x) => x.when?.kind === 'stacks-over-inputs' && /combiner/i.test(part(x.sku).name)))).toBe(true);
     // (d) a series range spanning DVC-B (60–120 V) and DVC-C.
     const d = ranges.find((r) => r.connection === 'series' && r !== a)!;
     const dMax = [d.minModules, d.maxModules].map((n) => voltsOf(d, n).max);

@@ -88,7 +88,8 @@ describe('physical build', () => {
   it('adds heights, masses and footprint', () => {
     const p = plan({ range: seriesRange(), modules: 4 });
     expect(p.heightMm).toBe(1310); // 100 base + 250 controller + 4 × 240 (domain.md §2)
-    // 18 + 4 × 48 units, plus accessories 2 + 0.2 + 0.05 + 2 + 2 + 1.5 + 0.3 (fixture masses × BOM units)
+    // 18 + 4 × 48 units, plus accessories per sold pack × packs: feet 2 × 1 pack, end cap 0.2,
+    // terminator 0.05, brackets 1 × 2, cable 2, cover 1.5, earth 0.3 (the fixture's masses)
     expect(p.massKg).toBe(218.05);
     expect(p.footprintM2).toBe(0.2925); // widest 650 mm × deepest 450 mm (domain.md §2)
     expect(p.floorLoadKpa).toBe(7.31); // 218.05 kg × 9.81 / 0.2925 m² / 1000 (domain.md §2 formula)
@@ -113,11 +114,12 @@ describe('throughput and efficiency', () => {
     expect(p.throughputAssumptions.join(' ')).toMatch(/6,000 rated cycles/);
   });
 
-  it("lets the maker's warranted throughput win", () => {
+  it("shows the maker's warranted throughput beside the estimate, not mixed into it", () => {
     const p = plan({ range: seriesRange({ module: makeUnit({ warrantedMwh: 15 }) }), modules: 4 });
-    expect(p.throughputMwh).toBe(60); // 4 modules × 15 MWh warranted (domain.md §2: the warranty wins)
-    expect(p.equivalentCycles).toBe(3255); // 60 MWh ÷ 18.432 kWh = 3255.2 (domain.md §2)
-    expect(p.throughputAssumptions.join(' ')).toMatch(/warranted/);
+    expect(p.throughputMwh).toBe(94); // the estimate is unchanged: 18.432 kWh × 6000 × 0.85 (domain.md §2 model)
+    expect(p.warrantedThroughputMwh).toBe(60); // 4 modules × 15 MWh, the maker's figure (issue 14: shown separately)
+    expect(p.warrantedThroughputNote).toMatch(/4 × 15 MWh/);
+    expect(p.throughputAssumptions.join(' ')).not.toMatch(/warranted/);
   });
 
   it('splits round-trip efficiency into √RTE each way', () => {
@@ -215,11 +217,13 @@ describe('cautions', () => {
     expect(p.cautions.every((c) => c.source.length > 0)).toBe(true);
   });
 
-  it('warns about floor load above 1.5 kPa and heavy units above 25 kg', () => {
-    const heavy = plan({ range: seriesRange(), modules: 4 });
+  it('warns about floor load on a suspended floor only, and heavy units above 25 kg', () => {
+    const heavy = plan({ range: seriesRange(), modules: 4, site: { floor: 'suspended' } });
     expect(heavy.floorLoadKpa).toBeGreaterThan(1.5); // AS/NZS 1170.1 residential 1.5 kPa, from memory
     expect(heavy.cautions.find((c) => c.code === 'floor_load')?.source).toMatch(/AS\/NZS 1170\.1/);
     expect(heavy.cautions.map((c) => c.code)).toContain('heavy_lift'); // 48 kg module > 25 kg: two-person lift, common practice
+    const onSlab = plan({ range: seriesRange(), modules: 4, site: { floor: 'slab' } });
+    expect(onSlab.cautions.map((c) => c.code)).not.toContain('floor_load'); // a slab on ground carries it (issue 14)
   });
 
   it('leaves them out for a light unit on a wide footprint', () => {
@@ -279,11 +283,12 @@ describe('no fit', () => {
     expect(error.message).toContain('60 V');
   });
 
-  it('reports more energy than the inverter accepts', () => {
+  it('reports more energy than the inverter accepts, naming the ceiling it leaves', () => {
     const inverter = lowVoltageInverter({ maxBatteryKwh: 10 });
     const error = planError(planStack({ range: parallelRange(), parts, targetUsableKwh: 15, inverter }));
-    expect(error.code).toBe('no_fit');
+    expect(error.code).toBe('target_unreachable');
     expect(error.details?.reason).toBe('too_much_energy'); // 15 kWh asked, 10 kWh accepted
+    expect(error.details?.maxUsableKwh).toBe(9.22); // 2 × 4.608 kWh is the most under 10 kWh (3 × 4.608 = 13.8 is over)
     expect(error.message).toContain('10 kWh');
   });
 
@@ -291,6 +296,7 @@ describe('no fit', () => {
     const inverter = lowVoltageInverter({ batteryInputs: 1 });
     const error = planError(planStack({ range: parallelRange(), parts, targetUsableKwh: 40, inverter }));
     expect(error.details?.reason).toBe('too_many_stacks'); // one stack tops out at 6 × 4.608 = 27.6 kWh
+    expect(error.details?.maxUsableKwh).toBe(27.65); // 6 × 4.608 kWh, the one stack this inverter takes
     expect(error.message).toContain('1 battery input');
   });
 

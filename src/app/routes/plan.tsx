@@ -9,6 +9,8 @@ import { partQueryOptions } from '@/features/catalogue/api/get-part.ts';
 import { useSavedPlan } from '@/features/planner/api/get-saved-plan.ts';
 import { useInverters } from '@/features/planner/api/get-inverters.ts';
 import { fromServer } from '@/features/planner/lib/plan-view.ts';
+import { siteParams } from '@/features/planner/hooks/use-planner-params.ts';
+import { SiteInputSchema } from '@shared/domain/site.ts';
 import { PlanActions } from '@/features/planner/components/plan-actions.tsx';
 import { PlanSheet } from '@/features/planner/components/plan-sheet.tsx';
 
@@ -23,6 +25,9 @@ function plannerSearch(request: Record<string, unknown>, rangeCode: string) {
     s.set('stacks', String(request.stacks ?? 1));
   }
   if (typeof request.inverterSku === 'string') s.set('inverter', request.inverterSku);
+  if (request.includeInverter === true) s.set('includeInverter', 'yes');
+  const site = SiteInputSchema.safeParse(request.site);
+  for (const [k, v] of Object.entries(siteParams(site.success ? site.data : undefined))) if (v) s.set(k, String(v));
   return s.toString();
 }
 

@@ -15,7 +15,7 @@ import { rangeQueryOptions } from '@/features/planner/api/get-range.ts';
 import { useInverters, type InverterOption } from '@/features/planner/api/get-inverters.ts';
 import { useStackPlan } from '@/features/planner/api/plan-stack.ts';
 import { useDebouncedValue } from '@/features/planner/hooks/use-debounced-value.ts';
-import { usePlannerParams, numberOrNull, type PlannerParams } from '@/features/planner/hooks/use-planner-params.ts';
+import { usePlannerParams, numberOrNull, siteFrom, type PlannerParams } from '@/features/planner/hooks/use-planner-params.ts';
 import { fromServer, planLocally, withStockFrom } from '@/features/planner/lib/plan-view.ts';
 import { RangeCards } from '@/features/planner/components/range-cards.tsx';
 import { PlanControls } from '@/features/planner/components/plan-controls.tsx';
@@ -29,14 +29,17 @@ const CONFIRM_PAUSE_MS = 200;
 
 function requestFrom(detail: RangeDetail | undefined, p: PlannerParams): StackPlanRequest | null {
   if (!detail) return null;
-  const inverterSku = p.inverter ?? undefined;
+  const common: Pick<StackPlanRequest, 'rangeId' | 'inverterSku' | 'site' | 'includeInverter'> = { rangeId: detail.id, inverterSku: p.inverter ?? undefined };
+  const site = siteFrom(p);
+  if (site) common.site = site;
+  if (p.inverter && p.includeInverter) common.includeInverter = true;
   if (p.mode === 'target') {
     const kwh = numberOrNull(p.kwh);
-    return kwh === null ? null : { rangeId: detail.id, targetUsableKwh: kwh, inverterSku };
+    return kwh === null ? null : { ...common, targetUsableKwh: kwh };
   }
   const modules = numberOrNull(p.modules);
   if (modules === null) return null;
-  return { rangeId: detail.id, modules, stacks: numberOrNull(p.stacks) ?? 1, inverterSku };
+  return { ...common, modules, stacks: numberOrNull(p.stacks) ?? 1 };
 }
 
 function plannerInverter(sku: string | undefined | null, inverters: InverterOption[], detail: RangeDetail | undefined): PlannerInverter | null {

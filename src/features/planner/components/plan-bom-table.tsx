@@ -4,6 +4,7 @@ import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attri
 import { DataTable, type ColumnMeta } from '@/components/ui/data-table.tsx';
 import { StatusTag } from '@/components/ui/notice.tsx';
 import { formatNumber } from '@/lib/format.ts';
+import { formatCents } from '@shared/domain/money.ts';
 import { warehousesOf, type ShownLine, type ShownPlan } from '../lib/plan-view.ts';
 import { SkuLink } from '@/features/catalogue/components/sku-link.tsx';
 
@@ -42,7 +43,18 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
           </span>
         ),
       },
-      { id: 'qty', accessorKey: 'qtyUnits', header: 'Qty (units)', meta: right, cell: (c) => <span className="num">{formatNumber(c.row.original.qtyUnits)}</span> },
+      {
+        id: 'qty',
+        accessorKey: 'qtyUnits',
+        header: 'Qty (units)',
+        meta: right,
+        cell: (c) => (
+          <span className="num whitespace-nowrap">
+            {formatNumber(c.row.original.qtyUnits)}
+            {c.row.original.lengthM != null && <span className="block text-xs text-ink-soft">{formatNumber(c.row.original.lengthM)} m</span>}
+          </span>
+        ),
+      },
       {
         id: 'packs',
         header: 'Packs × size',
@@ -54,7 +66,33 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
           </span>
         ),
       },
-      { id: 'why', accessorKey: 'reason', header: 'Why', enableSorting: false, meta: { className: 'min-w-48 text-ink-soft' }, cell: (c) => <span className="text-xs leading-snug">{c.row.original.reason}</span> },
+      {
+        id: 'price',
+        accessorKey: 'unitPriceCents',
+        header: 'Unit price',
+        meta: right,
+        cell: (c) => <span className="num whitespace-nowrap">{c.row.original.unitPriceCents != null ? formatCents(c.row.original.unitPriceCents) : '—'}</span>,
+      },
+      {
+        id: 'total',
+        accessorKey: 'lineTotalCents',
+        header: 'Line total',
+        meta: right,
+        cell: (c) => <span className="num whitespace-nowrap font-medium">{c.row.original.lineTotalCents != null ? formatCents(c.row.original.lineTotalCents) : '—'}</span>,
+      },
+      {
+        id: 'why',
+        accessorKey: 'reason',
+        header: 'Why',
+        enableSorting: false,
+        meta: { className: 'min-w-48 text-ink-soft' },
+        cell: (c) => (
+          <span className="text-xs leading-snug">
+            {c.row.original.ruleNumbers.length > 0 && <span className="font-semibold text-ink">{c.row.original.ruleNumbers.length === 1 ? 'Rule' : 'Rules'} {c.row.original.ruleNumbers.join(', ')}: </span>}
+            {c.row.original.reason}
+          </span>
+        ),
+      },
       ...warehouses.map<ColumnDef<ShownLine>>((wh) => ({
         id: `wh-${wh}`,
         header: wh,
@@ -81,8 +119,39 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
   }, [warehouseKey]);
   // A BOM is short and read whole: let the table grow with the page instead of scrolling inside it.
   return (
-    <div className="[&>div]:max-h-none print:[&>div]:overflow-visible">
-      <DataTable label="Bill of materials" data={plan.bom} columns={columns} getRowId={(l) => l.sku} empty="No parts." />
+    <div className="space-y-2">
+      <div className="[&>div]:max-h-none print:[&>div]:overflow-visible">
+        <DataTable label="Bill of materials" data={plan.bom} columns={columns} getRowId={(l) => l.sku} empty="No parts." />
+      </div>
+      <BomTotals totals={plan.totals} />
     </div>
   );
 }
+
+/** Subtotal, GST and total of the priced lines: list prices, GST worked out on the total. */
+export function BomTotals({ totals }: { totals: ShownPlan['totals'] }) {
+  const row = 'flex justify-between gap-6';
+  return (
+    <div className="flex justify-end">
+      <dl className="w-full max-w-xs space-y-0.5 rounded-md border border-line bg-card px-3 py-2 text-sm print:bg-white" aria-label="Totals" data-testid="bom-totals">
+        <div className={row}>
+          <dt>Subtotal (ex GST)</dt>
+          <dd className="num">{formatCents(totals.subtotalCents)}</dd>
+        </div>
+        <div className={row}>
+          <dt>GST 10 %</dt>
+          <dd className="num">{formatCents(totals.gstCents)}</dd>
+        </div>
+        <div className={`${row} border-t border-line pt-0.5 font-semibold`}>
+          <dt>Total (inc GST)</dt>
+          <dd className="num" data-testid="bom-total">
+            {formatCents(totals.totalCents)}
+          </dd>
+        </div>
+        <p className="pt-1 text-xs text-ink-soft">List prices{totals.unpricedLines > 0 ? `; ${plural(totals.unpricedLines, 'line')} without a price left out` : ''}.</p>
+      </dl>
+    </div>
+  );
+}
+
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;

@@ -1,6 +1,7 @@
 import { useId } from 'react';
 import type { RangeDetail } from '@shared/contracts/stack-plans.ts';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { COUNTRIES, COUNTRY_LABELS, DEFAULT_SITE, FLOORS, FLOOR_LABELS, LOCATIONS, LOCATION_LABELS, WALLS, WALL_LABELS } from '@shared/domain/site.ts';
 import { Stepper } from '@/components/ui/stepper.tsx';
 import { formatNumber } from '@/lib/format.ts';
 import type { InverterOption } from '../api/get-inverters.ts';
@@ -80,10 +81,10 @@ export function PlanControls({ range, params, update, inverters }: PlanControlsP
       ) : (
         <TextField
           label="Target usable energy (kWh)"
-          type="number"
+          // Text, not a number box: a number box reports "20." as empty mid-typing.
+          type="text"
           inputMode="decimal"
-          min={0}
-          step={0.1}
+          autoComplete="off"
           mono
           className="w-48"
           value={params.kwh}
@@ -103,6 +104,73 @@ export function PlanControls({ range, params, update, inverters }: PlanControlsP
         {forRange.length > 0 && <optgroup label="Listed for this range">{forRange.map(option)}</optgroup>}
         {others.length > 0 && <optgroup label="Other inverters">{others.map(option)}</optgroup>}
       </SelectField>
+      <label className={`mt-5 flex items-center gap-2 text-sm ${params.inverter ? '' : 'text-ink-soft'}`}>
+        <input type="checkbox" checked={params.includeInverter && !!params.inverter} disabled={!params.inverter} onChange={(e) => update({ includeInverter: e.target.checked })} className="h-4 w-4 accent-copper" />
+        Include the inverter on the BOM
+      </label>
+
+      <SiteControls params={params} update={update} />
     </div>
+  );
+}
+
+const unsaid = (what: string) => `Not said (${what})`;
+
+/** The site: what decides cable lengths, fixings, protection and which cautions apply. */
+function SiteControls({ params, update }: Pick<PlanControlsProps, 'params' | 'update'>) {
+  return (
+    <fieldset className="w-full border-t border-line pt-3">
+      <legend className="float-left mb-2 w-full text-xs font-semibold uppercase tracking-wide text-ink-soft">Site</legend>
+      <div className="clear-both grid grid-cols-1 gap-x-4 gap-y-3 sm:grid-cols-2 lg:grid-cols-3 xl:grid-cols-6">
+        <TextField
+          label="Cable run to inverter (m)"
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          mono
+          placeholder={String(DEFAULT_SITE.cableRunM)}
+          value={params.run}
+          onChange={(e) => update({ run: e.target.value })}
+          hint="Battery to inverter, one way"
+        />
+        <SelectField label="Wall" value={params.wall} onChange={(e) => update({ wall: e.target.value })}>
+          <option value="">{unsaid(WALL_LABELS[DEFAULT_SITE.wall])}</option>
+          {WALLS.map((w) => (
+            <option key={w} value={w}>
+              {WALL_LABELS[w]}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField label="Location" value={params.location} onChange={(e) => update({ location: e.target.value })}>
+          <option value="">{unsaid(LOCATION_LABELS[DEFAULT_SITE.location])}</option>
+          {LOCATIONS.map((l) => (
+            <option key={l} value={l}>
+              {LOCATION_LABELS[l]}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField label="Wall backs onto a habitable room" value={params.sharedWall} onChange={(e) => update({ sharedWall: e.target.value })}>
+          <option value="">{unsaid('no')}</option>
+          <option value="no">No</option>
+          <option value="yes">Yes</option>
+        </SelectField>
+        <SelectField label="Floor" value={params.floor} onChange={(e) => update({ floor: e.target.value })}>
+          <option value="">{unsaid(FLOOR_LABELS[DEFAULT_SITE.floor])}</option>
+          {FLOORS.map((f) => (
+            <option key={f} value={f}>
+              {FLOOR_LABELS[f]}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField label="Country" value={params.country} onChange={(e) => update({ country: e.target.value })}>
+          <option value="">{unsaid(COUNTRY_LABELS[DEFAULT_SITE.country])}</option>
+          {COUNTRIES.map((c) => (
+            <option key={c} value={c}>
+              {COUNTRY_LABELS[c]}
+            </option>
+          ))}
+        </SelectField>
+      </div>
+    </fieldset>
   );
 }

@@ -9,6 +9,8 @@ const TITLES: Record<string, string> = {
   no_fit: 'No layout fits this inverter',
   unknown_part: 'A BOM rule names a part that is not in the catalogue',
   missing_input: 'Give a module count or a target',
+  conflicting_input: 'Give a module count or a target, not both',
+  site_unsuitable: 'This range does not suit the site',
 };
 
 const NEXT: Record<string, string> = {
@@ -17,6 +19,7 @@ const NEXT: Record<string, string> = {
   target_unreachable: 'Lower the target, allow more stacks, or choose a larger range.',
   no_fit: 'Choose another inverter or range, or plan without an inverter to see the figures.',
   unknown_part: 'Someone with range editing rights needs to fix the rule.',
+  site_unsuitable: 'Change the site details, or choose a range made for this site.',
 };
 
 /** A planner refusal, naming the reason and what to try next. */

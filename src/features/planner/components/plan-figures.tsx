@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { RESIDENTIAL_FLOOR_KPA } from '@shared/domain/energy.ts';
+import { COUNTRY_LABELS, FLOOR_LABELS, LOCATION_LABELS, RESIDENTIAL_FLOOR_POINT_KN, WALL_LABELS } from '@shared/domain/site.ts';
 import { StatusTag } from '@/components/ui/notice.tsx';
 import { formatNumber } from '@/lib/format.ts';
 import type { ShownPlan } from '../lib/plan-view.ts';
@@ -38,7 +39,15 @@ export function InverterFitLine({ plan, inverter }: { plan: Pick<ShownPlan, 'inv
   if (!fit || !inverter) return <span className="text-sm text-ink-soft">No inverter chosen</span>;
   const window = `${formatNumber(inverter.batteryMinV)}–${formatNumber(inverter.batteryMaxV)} V`;
   return fit.fits ? (
-    <StatusTag tone="good">fits the {window} window</StatusTag>
+    <span className="flex flex-col items-start gap-1">
+      <StatusTag tone="good">fits the {window} window</StatusTag>
+      {fit.warnings?.map((w) => (
+        <span key={w} className="flex items-start gap-1.5 text-xs font-medium text-[#7a4f12] print:text-black" data-testid="inverter-warning">
+          <span aria-hidden="true">!</span>
+          {w}
+        </span>
+      ))}
+    </span>
   ) : (
     <span className="flex items-start gap-1.5 text-sm font-medium text-danger">
       <span aria-hidden="true" className="mt-0.5 inline-flex h-4 w-4 shrink-0 items-center justify-center rounded-full border border-current text-[10px] font-bold">
@@ -54,7 +63,9 @@ export function InverterFitLine({ plan, inverter }: { plan: Pick<ShownPlan, 'inv
 
 /** The plan's figures, each with its unit; the floor load stands out above what a house floor is designed for. */
 export function PlanFigures({ plan, inverter }: { plan: ShownPlan; inverter: InverterWindow | null }) {
-  const heavyFloor = plan.floorLoadKpa > RESIDENTIAL_FLOOR_KPA;
+  // The floor figure matters on a suspended floor; on a slab it is shown but not flagged.
+  const suspended = plan.site.floor === 'suspended';
+  const heavyFloor = suspended && (plan.floorLoadKpa > RESIDENTIAL_FLOOR_KPA || plan.footLoadKn > RESIDENTIAL_FLOOR_POINT_KN);
   return (
     <div className="space-y-3">
       <dl className="grid grid-cols-2 gap-x-3 gap-y-2 xl:grid-cols-3" aria-label="Plan figures">
@@ -91,11 +102,21 @@ export function PlanFigures({ plan, inverter }: { plan: ShownPlan; inverter: Inv
         <Figure
           term="Floor load"
           tone={heavyFloor ? 'caution' : undefined}
-          note={heavyFloor ? <span className="font-medium text-[#7a4f12] print:text-black">! above the {formatNumber(RESIDENTIAL_FLOOR_KPA)} kPa a house floor is designed for</span> : undefined}
+          note={
+            <>
+              <Qty value={plan.footLoadKn} unit="kN" digits={2} /> per foot{' '}
+              {heavyFloor ? <span className="font-medium text-[#7a4f12] print:text-black">! more than a house floor is designed for</span> : suspended ? '' : '(on a slab)'}
+            </>
+          }
         >
           <Qty value={plan.floorLoadKpa} unit="kPa" digits={1} />
         </Figure>
-        <Figure term="Lifetime throughput (estimate)">{plan.throughputMwh != null ? <Qty value={plan.throughputMwh} unit="MWh" /> : <span className="text-sm text-ink-soft">not known</span>}</Figure>
+        <Figure term="Lifetime throughput (estimate)" note="usable × rated cycles × mean state of health">
+          <span data-testid="throughput-estimate">{plan.throughputMwh != null ? <Qty value={plan.throughputMwh} unit="MWh" /> : <span className="text-sm text-ink-soft">not known</span>}</span>
+        </Figure>
+        <Figure term="Warranted throughput (maker)" note={plan.warrantedThroughputNote ?? 'the maker states none'}>
+          <span data-testid="throughput-warranted">{plan.warrantedThroughputMwh != null ? <Qty value={plan.warrantedThroughputMwh} unit="MWh" /> : <span className="text-sm text-ink-soft">none stated</span>}</span>
+        </Figure>
         <Figure term="Equivalent full cycles" note={plan.yearsAtOneCyclePerDay != null ? <>≈ <Qty value={plan.yearsAtOneCyclePerDay} unit="years" /> at one a day</> : undefined}>
           {plan.equivalentCycles != null ? <Qty value={plan.equivalentCycles} unit="cycles" /> : <span className="text-sm text-ink-soft">not known</span>}
         </Figure>
@@ -111,6 +132,13 @@ export function PlanFigures({ plan, inverter }: { plan: ShownPlan; inverter: Inv
         <div className="mt-0.5">
           <InverterFitLine plan={plan} inverter={inverter} />
         </div>
+      </div>
+      <div className="rounded-md border border-line px-2.5 py-2 text-sm" data-testid="plan-site">
+        <p className="text-xs font-semibold text-ink-soft">Site</p>
+        <p>
+          <span className="num">{formatNumber(plan.site.cableRunM)} m</span> cable run · {WALL_LABELS[plan.site.wall]} · {LOCATION_LABELS[plan.site.location]} · {plan.site.sharesHabitableWall ? 'wall shared with a habitable room' : 'wall not shared with a habitable room'} · {FLOOR_LABELS[plan.site.floor]} · {COUNTRY_LABELS[plan.site.country]}
+        </p>
+        {plan.siteAssumed.length > 0 && <p className="mt-0.5 text-xs text-ink-soft">Assumed, not said: {plan.siteAssumed.join('; ')}.</p>}
       </div>
       {plan.throughputAssumptions.length > 0 && (
         <details className="text-sm">

@@ -108,7 +108,7 @@ export function RangeForm({ detail, inverters, catalogue, onSaved }: RangeFormPr
         </fieldset>
       </Card>
 
-      <RulesEditor control={form.control} register={form.register} errors={err} catalogue={catalogue} />
+      <RulesEditor control={form.control} register={form.register} setValue={form.setValue} errors={err} catalogue={catalogue} />
 
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" variant="primary" disabled={update.isPending}>

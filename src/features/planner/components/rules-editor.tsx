@@ -1,9 +1,10 @@
-import { useFieldArray, useWatch, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
+import { useFieldArray, useWatch, type Control, type FieldErrors, type UseFormRegister, type UseFormSetValue } from 'react-hook-form';
 import { BOM_BASES } from '@shared/domain/bom-rules.ts';
+import { COUNTRIES, COUNTRY_LABELS, FLOORS, FLOOR_LABELS, LOCATIONS, LOCATION_LABELS, WALLS, WALL_LABELS } from '@shared/domain/site.ts';
 import type { PlannerPart } from '@shared/domain/planner.ts';
 import { Button } from '@/components/ui/button.tsx';
 import { FieldError } from '@/components/ui/field.tsx';
-import { BASIS_LABELS, CONDITION_LABELS, EMPTY_RULE, type ConditionKind, type RangeFormValues } from './range-form-values.ts';
+import { BASIS_LABELS, CONDITION_LABELS, EMPTY_RULE, conditionOfKind, type ConditionKind, type RangeFormValues } from './range-form-values.ts';
 
 const cell = 'w-full rounded-md border border-line bg-card px-2 py-1 text-sm text-ink aria-[invalid=true]:border-danger disabled:bg-paper disabled:text-ink-soft/60';
 const optionalNumber = (v: unknown) => (v === '' || v === null || v === undefined || Number.isNaN(v) ? undefined : Number(v));
@@ -11,12 +12,32 @@ const optionalNumber = (v: unknown) => (v === '' || v === null || v === undefine
 interface RulesEditorProps {
   control: Control<RangeFormValues>;
   register: UseFormRegister<RangeFormValues>;
+  setValue: UseFormSetValue<RangeFormValues>;
   errors: FieldErrors<RangeFormValues>;
   catalogue: Record<string, PlannerPart>;
 }
 
+/** A select over a closed list of site values, for a rule's condition parameter. */
+function ParamSelect<T extends string>({ label, values, labels, field }: { label: string; values: readonly T[]; labels: Record<T, string>; field: ReturnType<UseFormRegister<RangeFormValues>> }) {
+  return (
+    <select aria-label={label} className={cell} {...field}>
+      {values.map((v) => (
+        <option key={v} value={v}>
+          {labels[v]}
+        </option>
+      ))}
+    </select>
+  );
+}
+
+/** The first message zod gave for a condition or one of its parameters. */
+function conditionError(error: unknown): string {
+  const e = error as { message?: string } & Record<string, { message?: string } | undefined>;
+  return e.message ?? e.mm?.message ?? e.upToM?.message ?? e.overM?.message ?? 'Check this condition.';
+}
+
 /** The range's BOM rules as rows: a part, how its quantity scales, and when it applies. */
-export function RulesEditor({ control, register, errors, catalogue }: RulesEditorProps) {
+export function RulesEditor({ control, register, setValue, errors, catalogue }: RulesEditorProps) {
   const { fields, append, remove } = useFieldArray({ control, name: 'rules' });
   const rules = useWatch({ control, name: 'rules' });
   const skus = Object.keys(catalogue).sort();
@@ -109,7 +130,14 @@ export function RulesEditor({ control, register, errors, catalogue }: RulesEdito
                   </td>
                   <td className="px-2 py-1.5">
                     <div className="flex gap-1.5">
-                      <select aria-label={`When, rule ${n}`} className={cell} {...register(`rules.${i}.when.kind`)}>
+                      <select
+                        aria-label={`When, rule ${n}`}
+                        className={cell}
+                        {...register(`rules.${i}.when.kind`, {
+                          // A new kind starts with its own parameter filled in, so the row stays valid.
+                          onChange: (e: { target: { value: string } }) => setValue(`rules.${i}.when`, conditionOfKind(e.target.value as ConditionKind), { shouldDirty: true }),
+                        })}
+                      >
                         {(Object.keys(CONDITION_LABELS) as ConditionKind[]).map((k) => (
                           <option key={k} value={k}>
                             {CONDITION_LABELS[k]}
@@ -122,8 +150,21 @@ export function RulesEditor({ control, register, errors, catalogue }: RulesEdito
                           <span className="text-xs text-ink-soft">mm</span>
                         </span>
                       )}
+                      {kind === 'wall' && <ParamSelect label={`Wall, rule ${n}`} values={WALLS} labels={WALL_LABELS} field={register(`rules.${i}.when.wall`)} />}
+                      {kind === 'location' && <ParamSelect label={`Location, rule ${n}`} values={LOCATIONS} labels={LOCATION_LABELS} field={register(`rules.${i}.when.location`)} />}
+                      {kind === 'floor' && <ParamSelect label={`Floor, rule ${n}`} values={FLOORS} labels={FLOOR_LABELS} field={register(`rules.${i}.when.floor`)} />}
+                      {kind === 'country' && <ParamSelect label={`Country, rule ${n}`} values={COUNTRIES} labels={COUNTRY_LABELS} field={register(`rules.${i}.when.country`)} />}
+                      {kind === 'run-within' && (
+                        <span className="flex items-center gap-1">
+                          <span className="text-xs text-ink-soft">over</span>
+                          <input type="number" min={0} step={0.5} aria-label={`Cable run over (m), rule ${n}`} aria-invalid={e?.when ? true : undefined} className={`${cell} num w-16`} {...register(`rules.${i}.when.overM`, { setValueAs: optionalNumber })} />
+                          <span className="text-xs text-ink-soft">up to</span>
+                          <input type="number" min={0} step={0.5} aria-label={`Cable run up to (m), rule ${n}`} aria-invalid={e?.when ? true : undefined} className={`${cell} num w-16`} {...register(`rules.${i}.when.upToM`, { setValueAs: optionalNumber })} />
+                          <span className="text-xs text-ink-soft">m</span>
+                        </span>
+                      )}
                     </div>
-                    {e?.when && <FieldError>{e.when.message ?? (e.when as { mm?: { message?: string } }).mm?.message ?? 'Give the height in mm.'}</FieldError>}
+                    {e?.when && <FieldError>{conditionError(e.when)}</FieldError>}
                   </td>
                   <td className="px-2 py-1.5 text-right">
                     <Button variant="ghost" aria-label={`Remove rule ${n}`} onClick={() => remove(i)} className="px-2 text-ink-soft hover:text-danger">

@@ -1,6 +1,7 @@
 // One shape for a plan on screen, whether the browser computed it a moment ago or the
 // server answered with availability: the figures, drawing and BOM components read this.
 import type { RangeDetail, StackPlanRequest, StackPlanResult } from '@shared/contracts/stack-plans.ts';
+import { SiteInputSchema } from '@shared/domain/site.ts';
 import { planStack, type PlanError, type PlannerInverter, type PlannerRange, type StackPlan } from '@shared/domain/planner.ts';
 
 export interface LineStock {
@@ -13,7 +14,7 @@ export type ShownLine = StackPlan['bom'][number] & { stock?: LineStock };
 
 export type ShownPlan = Omit<StackPlan, 'bom' | 'inverterFit'> & {
   bom: ShownLine[];
-  inverterFit: { fits: boolean; reason?: string; code?: string } | null;
+  inverterFit: { fits: boolean; reason?: string; code?: string; warnings?: string[] } | null;
   unitWidthMm: number;
   /** True once the lines carry the server's stock figures for exactly this plan. */
   confirmed: boolean;
@@ -28,7 +29,19 @@ export function unitWidthOf(range: PlannerRange) {
 /** The browser's own plan, from the range detail's planner payload. */
 export function planLocally(detail: RangeDetail, req: StackPlanRequest, inverter: PlannerInverter | null): { ok: true; plan: ShownPlan } | { ok: false; error: PlanError } {
   const range = plannerRangeOf(detail);
-  const result = planStack({ range, parts: detail.planner.parts, modules: req.modules, targetUsableKwh: req.targetUsableKwh, stacks: req.stacks, inverter });
+  // The same site checks as the server's contract, so a bad run is explained before it is sent.
+  const site = SiteInputSchema.safeParse(req.site ?? {});
+  if (!site.success) return { ok: false, error: { code: 'site_unsuitable', message: site.error.issues.map((i) => i.message).join(' ') } };
+  const result = planStack({
+    range,
+    parts: detail.planner.parts,
+    modules: req.modules,
+    targetUsableKwh: req.targetUsableKwh,
+    stacks: req.stacks,
+    inverter,
+    site: site.data,
+    includeInverter: req.includeInverter,
+  });
   if (!result.ok) return result;
   return { ok: true, plan: { ...result.plan, unitWidthMm: unitWidthOf(range), confirmed: false } };
 }
