@@ -173,15 +173,13 @@ export function describeCondition(condition: BomCondition, ctx: BomContext, part
     case 'height-over':
       return `stack ${numberFormat.format(ctx.heightMm)} mm tall, over ${numberFormat.format(condition.mm)} mm`;
     case 'wall':
-      return `on a ${WALL_LABELS[condition.wall]}`;
     case 'location':
-      return LOCATION_LABELS[condition.location];
+    case 'floor':
+    case 'country':
+      // The site fact itself is the reason.
+      return conditionLabel(condition);
     case 'shares-habitable-wall':
       return 'the wall is shared with a habitable room: a non-combustible barrier behind the battery';
-    case 'floor':
-      return `on a ${FLOOR_LABELS[condition.floor]}`;
-    case 'country':
-      return `installed in ${COUNTRY_LABELS[condition.country]}`;
     case 'stacks-over-inputs': {
       const inverter = ctx.inverter ? `${ctx.inverter.name} has ${count(ctx.inverter.batteryInputs, 'battery input')}` : 'no inverter chosen, so 1 battery input assumed';
       return `${count(ctx.stacks, 'stack')} and ${inverter}: the stacks are joined before the inverter`;

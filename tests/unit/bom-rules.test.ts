@@ -155,3 +155,40 @@ describe('unknownRuleSkus', () => {
     expect(unknownRuleSkus(rules, { A: part('A') })).toEqual(['B']);
   });
 });
+
+describe('rules that see the site and the inverter', () => {
+  const site = (over: Partial<NonNullable<BomContext['site']>> = {}) => ({ cableRunM: 3, wall: 'stud' as const, location: 'indoor' as const, sharesHabitableWall: false, floor: 'slab' as const, country: 'AU' as const, ...over });
+
+  it('links a daisy chain of stacks: stacks − 1', () => {
+    const link = rule({ sku: 'LINK', basis: 'per-stack-link', qty: 1 });
+    expect(basisQuantity(link, ctx({ stacks: 1 })).qty).toBe(0); // one stack links to nothing
+    expect(basisQuantity(link, ctx({ stacks: 3 })).qty).toBe(2); // A–B, B–C
+  });
+
+  it('rounds a run up to what is sold: by the metre, or in lengths', () => {
+    const conduit = rule({ sku: 'CDT', basis: 'per-metre-of-run', qty: 1 });
+    expect(basisQuantity(conduit, ctx({ site: site({ cableRunM: 8 }) }), { ...part('CDT'), lengthM: 1 }).qty).toBe(8);
+    expect(basisQuantity(conduit, ctx({ site: site({ cableRunM: 7.2 }) }), { ...part('CDT'), lengthM: 1 }).qty).toBe(8); // ceil(7.2)
+    expect(basisQuantity(conduit, ctx({ site: site({ cableRunM: 9 }) }), { ...part('CDT'), lengthM: 4 }).qty).toBe(3); // ceil(9 / 4) lengths of 4 m
+    expect(basisQuantity(conduit, ctx({ site: site({ cableRunM: 8 }) }), { ...part('CDT'), lengthM: 4 }).qty).toBe(2); // exactly 2 × 4 m
+  });
+
+  it('chooses by the run: over the lower length, up to and including the upper', () => {
+    const threeToFive = { kind: 'run-within' as const, overM: 3, upToM: 5 };
+    expect(conditionHolds(threeToFive, ctx({ site: site({ cableRunM: 3 }) }))).toBe(false); // 3 m belongs to the 3 m set
+    expect(conditionHolds(threeToFive, ctx({ site: site({ cableRunM: 3.01 }) }))).toBe(true);
+    expect(conditionHolds(threeToFive, ctx({ site: site({ cableRunM: 5 }) }))).toBe(true);
+    expect(BomRuleSchema.safeParse({ sku: 'X', basis: 'per-stack', qty: 1, when: { kind: 'run-within', overM: 5, upToM: 3 } }).success).toBe(false);
+    expect(BomRuleSchema.safeParse({ sku: 'X', basis: 'per-stack', qty: 1, when: { kind: 'wall', wall: 'plasterboard' } }).success).toBe(false);
+  });
+
+  it('sees the wall, location, country and the inverter’s inputs', () => {
+    expect(conditionHolds({ kind: 'wall', wall: 'masonry' }, ctx({ site: site({ wall: 'masonry' }) }))).toBe(true);
+    expect(conditionHolds({ kind: 'wall', wall: 'masonry' }, ctx({ site: site() }))).toBe(false);
+    expect(conditionHolds({ kind: 'location', location: 'garage' }, ctx({ site: site({ location: 'garage' }) }))).toBe(true);
+    expect(conditionHolds({ kind: 'country', country: 'NZ' }, ctx())).toBe(false); // defaults: AU
+    expect(conditionHolds({ kind: 'stacks-over-inputs' }, ctx({ stacks: 2, inverter: { name: 'Two-input', batteryInputs: 2 } }))).toBe(false);
+    expect(conditionHolds({ kind: 'stacks-over-inputs' }, ctx({ stacks: 2, inverter: { name: 'One-input', batteryInputs: 1 } }))).toBe(true);
+    expect(conditionHolds({ kind: 'stacks-over-inputs' }, ctx({ stacks: 2 }))).toBe(true); // no inverter: one input assumed
+  });
+});

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import type { RangeDetail } from '@shared/contracts/stack-plans.ts';
-import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
 import { COUNTRIES, COUNTRY_LABELS, DEFAULT_SITE, FLOORS, FLOOR_LABELS, LOCATIONS, LOCATION_LABELS, WALLS, WALL_LABELS } from '@shared/domain/site.ts';
 import { Stepper } from '@/components/ui/stepper.tsx';
 import { formatNumber } from '@/lib/format.ts';
@@ -114,7 +114,24 @@ export function PlanControls({ range, params, update, inverters }: PlanControlsP
   );
 }
 
-const unsaid = (what: string) => `Not said (${what})`;
+interface SiteSelectProps<T extends string> {
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+  /** What the planner assumes when nothing is chosen. */
+  assumed: string;
+  values: readonly T[];
+  labels: Record<T, string>;
+}
+
+/** One site choice; the empty option says what the planner assumes. */
+function SiteSelect<T extends string>({ label, value, onChange, assumed, values, labels }: SiteSelectProps<T>) {
+  return (
+    <SelectField label={label} value={value} onChange={(e) => onChange(e.target.value)} options={optionsOf(values, labels)}>
+      <option value="">Not said ({assumed})</option>
+    </SelectField>
+  );
+}
 
 /** The site: what decides cable lengths, fixings, protection and which cautions apply. */
 function SiteControls({ params, update }: Pick<PlanControlsProps, 'params' | 'update'>) {
@@ -133,43 +150,11 @@ function SiteControls({ params, update }: Pick<PlanControlsProps, 'params' | 'up
           onChange={(e) => update({ run: e.target.value })}
           hint="Battery to inverter, one way"
         />
-        <SelectField label="Wall" value={params.wall} onChange={(e) => update({ wall: e.target.value })}>
-          <option value="">{unsaid(WALL_LABELS[DEFAULT_SITE.wall])}</option>
-          {WALLS.map((w) => (
-            <option key={w} value={w}>
-              {WALL_LABELS[w]}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Location" value={params.location} onChange={(e) => update({ location: e.target.value })}>
-          <option value="">{unsaid(LOCATION_LABELS[DEFAULT_SITE.location])}</option>
-          {LOCATIONS.map((l) => (
-            <option key={l} value={l}>
-              {LOCATION_LABELS[l]}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Wall backs onto a habitable room" value={params.sharedWall} onChange={(e) => update({ sharedWall: e.target.value })}>
-          <option value="">{unsaid('no')}</option>
-          <option value="no">No</option>
-          <option value="yes">Yes</option>
-        </SelectField>
-        <SelectField label="Floor" value={params.floor} onChange={(e) => update({ floor: e.target.value })}>
-          <option value="">{unsaid(FLOOR_LABELS[DEFAULT_SITE.floor])}</option>
-          {FLOORS.map((f) => (
-            <option key={f} value={f}>
-              {FLOOR_LABELS[f]}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Country" value={params.country} onChange={(e) => update({ country: e.target.value })}>
-          <option value="">{unsaid(COUNTRY_LABELS[DEFAULT_SITE.country])}</option>
-          {COUNTRIES.map((c) => (
-            <option key={c} value={c}>
-              {COUNTRY_LABELS[c]}
-            </option>
-          ))}
-        </SelectField>
+        <SiteSelect label="Wall" value={params.wall} onChange={(wall) => update({ wall })} assumed={WALL_LABELS[DEFAULT_SITE.wall]} values={WALLS} labels={WALL_LABELS} />
+        <SiteSelect label="Location" value={params.location} onChange={(location) => update({ location })} assumed={LOCATION_LABELS[DEFAULT_SITE.location]} values={LOCATIONS} labels={LOCATION_LABELS} />
+        <SiteSelect label="Wall backs onto a habitable room" value={params.sharedWall} onChange={(sharedWall) => update({ sharedWall })} assumed="no" values={['no', 'yes'] as const} labels={{ no: 'No', yes: 'Yes' }} />
+        <SiteSelect label="Floor" value={params.floor} onChange={(floor) => update({ floor })} assumed={FLOOR_LABELS[DEFAULT_SITE.floor]} values={FLOORS} labels={FLOOR_LABELS} />
+        <SiteSelect label="Country" value={params.country} onChange={(country) => update({ country })} assumed={COUNTRY_LABELS[DEFAULT_SITE.country]} values={COUNTRIES} labels={COUNTRY_LABELS} />
       </div>
     </fieldset>
   );
