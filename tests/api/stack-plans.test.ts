@@ -224,7 +224,7 @@ describe('range editing', () => {
   it('moves a part in or out of the range facet when its rules change', async () => {
     const { admin, input } = await body('QRB-RIDGE');
     await t.services.partsIndex.rebuild(t.db);
-    const accessory = 'HLM-ACC-BOLL';
+    const accessory = 'HLM-ACC-LIFT'; // in no demo range's rules
     const facet = async () => (await admin.get('/api/parts').query({ q: accessory })).body.data.find((p: { sku: string }) => p.sku === accessory).ranges;
     expect(await facet()).not.toContain('QRB-RIDGE');
     await admin.put('/api/ranges/QRB-RIDGE').send({ ...input, rules: [...input.rules, { sku: accessory, basis: 'per-system', qty: 1 }] }).expect(200);
