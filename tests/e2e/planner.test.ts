@@ -67,7 +67,7 @@ describe('stack planner', () => {
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download BOM (CSV)' }).click()]);
     expect(download.suggestedFilename()).toMatch(/\.csv$/);
     const csv = await readFile((await download.path())!, 'utf8');
-    expect(csv.replace(/^\uFEFF/, '').split(/\r?\n/)[0]).toBe('SKU,Part,Category,Qty (units),Pack size,Packs,Available,Short,Why');
+    expect(csv.replace(/^\uFEFF/, '').split(/\r?\n/)[0]).toBe('SKU,Part,Category,Qty (units),Pack size,Packs,Length (m),Unit price ex GST,Line total ex GST,Available,Short,Rules,Why');
     expect(csv).toContain('QRB-HEARTH-M51');
 
     await page.getByRole('button', { name: 'Save as draft' }).click();
@@ -89,6 +89,47 @@ describe('stack planner', () => {
     await row.waitFor();
     expect(await row.textContent()).toContain('Quarnby Hearth 51');
     expect(await row.textContent()).toContain('Brunswick 3056');
+  });
+
+  it('keeps every keystroke typed at full speed', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'installer@stackyard.test');
+    await page.goto('/planner?range=QRB-HEARTH&mode=target');
+    const box = page.getByLabel('Target usable energy (kWh)');
+    await box.waitFor();
+    // No pause between keys (issue 9: "20.5" typed fast became ".5" or "2.5"; bound to the URL, "2").
+    await box.pressSequentially('20.5', { delay: 0 });
+    await page.waitForTimeout(300); // let any late re-render overwrite the box, as the old one did
+    expect(await box.inputValue()).toBe('20.5');
+    // 20.5 kWh at 4.9 kWh a module: 5 modules reach 24.5 (4 give only 19.6), so the plan is 5 modules.
+    await waitForText(page.getByTestId('usable-kwh'), /24\.5/);
+    await expect.poll(() => new URL(page.url()).searchParams.get('kwh')).toBe('20.5');
+    const run = page.getByLabel('Cable run to inverter (m)');
+    await run.pressSequentially('12.75', { delay: 0 });
+    await page.waitForTimeout(300);
+    expect(await run.inputValue()).toBe('12.75');
+  });
+
+  it('plans for the site: garage, masonry, an 8 m run on a DVC-C range, with prices and totals', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'installer@stackyard.test');
+    await page.goto('/planner?range=QRB-RIDGE&modules=4');
+    const bom = page.getByRole('table', { name: 'Bill of materials' });
+    await waitForText(page.getByTestId('dvc'), /DVC-C/); // 4 × 58.4 = 233.6 V > 120 V
+    await page.getByLabel('Cable run to inverter (m)').fill('8');
+    await page.getByLabel('Wall', { exact: true }).selectOption('masonry');
+    await page.getByLabel('Location').selectOption('garage');
+    await waitForText(bom.getByRole('row').filter({ hasText: 'QRB-CDT-25' }), /8 m cable run/);
+    expect(await bom.getByRole('row').filter({ hasText: 'QRB-CBL-HV6-100' }).count()).toBe(1); // the 10 m set reaches 8 m
+    expect(await bom.getByRole('row').filter({ hasText: 'QRB-WB-M' }).count()).toBe(1);
+    expect(await bom.getByRole('row').filter({ hasText: 'HLM-ACC-BOLL' }).count()).toBe(1);
+    await page.getByTestId('caution-vehicle_impact').waitFor();
+    await waitForText(page.getByTestId('plan-site'), /8 m cable run · masonry wall · garage or carport/);
+    await waitForText(page.getByTestId('bom-total'), /^\$[\d,]+\.\d\d$/);
+
+    // Outdoors does not suit Stackline's IP21 modules: the planner says so instead of planning.
+    await page.goto('/planner?range=TVP-SL48&modules=2&location=outdoor');
+    await waitForText(page.getByTestId('plan-error'), /IP21/);
   });
 
   it('names the reason when a plan cannot be made', async () => {
