@@ -138,7 +138,7 @@ function SiteControls({ params, update }: Pick<PlanControlsProps, 'params' | 'up
   return (
     <fieldset className="w-full border-t border-line pt-3">
       <legend className="float-left mb-2 w-full text-xs font-semibold uppercase tracking-wide text-ink-soft">Site</legend>
-      <div className="clear-both grid grid-cols-1 gap-x-4 gap-y-3 sm:grid-cols-2 lg:grid-cols-3 xl:grid-cols-6">
+      <div className="clear-both grid grid-cols-1 gap-x-4 gap-y-3 sm:grid-cols-2 lg:grid-cols-3">
         <TextField
           label="Cable run to inverter (m)"
           type="text"

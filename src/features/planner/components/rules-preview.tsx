@@ -3,11 +3,20 @@ import type { RangeDetail } from '@shared/contracts/stack-plans.ts';
 import { BomRuleSchema, type BomRule } from '@shared/domain/bom-rules.ts';
 import { planStack, type PlannerPart, type PlannerRange, type StackPlan } from '@shared/domain/planner.ts';
 import { Notice } from '@/components/ui/notice.tsx';
+import type { SiteInput } from '@shared/domain/site.ts';
 import { formatNumber } from '@/lib/format.ts';
 import { plannerRangeOf } from '../lib/plan-view.ts';
 import type { RangeFormValues } from './range-form-values.ts';
 
 const whole = (n: unknown): n is number => typeof n === 'number' && Number.isInteger(n);
+
+/** Sites to preview the rules on, so rules that depend on the site can be seen to fire. */
+const PREVIEW_SITES: { label: string; site: SiteInput }[] = [
+  { label: 'Default site (3 m run, stud wall, indoors)', site: {} },
+  { label: 'Garage, masonry wall, 8 m run', site: { location: 'garage', wall: 'masonry', cableRunM: 8 } },
+  { label: 'Outdoors under cover, 4 m run', site: { location: 'outdoor', cableRunM: 4 } },
+  { label: 'New Zealand, wall shared with a habitable room', site: { country: 'NZ', sharesHabitableWall: true } },
+];
 /** Enough columns for any real range without letting a typo build a thousand. */
 const MAX_COLUMNS = 24;
 
@@ -21,6 +30,8 @@ interface RulesPreviewProps {
 /** The BOM at every module count, from the edited (unsaved) values, with the shared planner. */
 export function RulesPreview({ detail, values, catalogue }: RulesPreviewProps) {
   const [stacks, setStacks] = useState(1);
+  const [siteIndex, setSiteIndex] = useState(0);
+  const site = PREVIEW_SITES[siteIndex]!.site;
   const saved = plannerRangeOf(detail);
   const { rules, left } = useMemo(() => {
     const ok: BomRule[] = [];
@@ -53,9 +64,9 @@ export function RulesPreview({ detail, values, catalogue }: RulesPreviewProps) {
     const parts = { ...catalogue, ...detail.planner.parts };
     return Array.from({ length: max - min + 1 }, (_, i) => {
       const modules = min + i;
-      return { modules, result: planStack({ range, parts, modules, stacks: shownStacks }) };
+      return { modules, result: planStack({ range, parts, modules, stacks: shownStacks, site }) };
     });
-  }, [saved, values.name, values.connection, values.baseHeightMm, values.defaultDodPct, min, max, maxStacks, rules, catalogue, detail.planner.parts, shownStacks]);
+  }, [saved, values.name, values.connection, values.baseHeightMm, values.defaultDodPct, min, max, maxStacks, rules, catalogue, detail.planner.parts, shownStacks, site]);
 
   const plans = columns.filter((c): c is { modules: number; result: { ok: true; plan: StackPlan } } => c.result.ok);
   const errors = [...new Set(columns.flatMap((c) => (c.result.ok ? [] : [c.result.error.message])))];
@@ -73,18 +84,30 @@ export function RulesPreview({ detail, values, catalogue }: RulesPreviewProps) {
           </h2>
           <p className="text-xs text-ink-soft">From the values above, not yet saved. Quantities are units ordered, after rounding up to packs.</p>
         </div>
-        {maxStacks > 1 && (
+        <div className="flex flex-wrap items-end gap-3">
           <label className="text-xs font-semibold text-ink-soft">
-            Stacks{' '}
-            <select value={shownStacks} onChange={(e) => setStacks(Number(e.target.value))} className="num ml-1 rounded-md border border-line bg-card px-2 py-1 text-sm text-ink">
-              {Array.from({ length: maxStacks }, (_, i) => (
-                <option key={i + 1} value={i + 1}>
-                  {i + 1}
+            Site{' '}
+            <select value={siteIndex} onChange={(e) => setSiteIndex(Number(e.target.value))} className="ml-1 rounded-md border border-line bg-card px-2 py-1 text-sm text-ink">
+              {PREVIEW_SITES.map((s, i) => (
+                <option key={s.label} value={i}>
+                  {s.label}
                 </option>
               ))}
             </select>
           </label>
-        )}
+          {maxStacks > 1 && (
+            <label className="text-xs font-semibold text-ink-soft">
+              Stacks{' '}
+              <select value={shownStacks} onChange={(e) => setStacks(Number(e.target.value))} className="num ml-1 rounded-md border border-line bg-card px-2 py-1 text-sm text-ink">
+                {Array.from({ length: maxStacks }, (_, i) => (
+                  <option key={i + 1} value={i + 1}>
+                    {i + 1}
+                  </option>
+                ))}
+              </select>
+            </label>
+          )}
+        </div>
       </div>
       {unitsChanged && <Notice>The preview uses the saved controller and module ({detail.controllerSku}, {detail.moduleSku}) until you save the new ones.</Notice>}
       {left.length > 0 && <Notice tone="caution">Left out of the preview until complete: rule {left.join(', ')}.</Notice>}
