@@ -30,7 +30,7 @@ if (tsx(['server/cli/db-tasks.ts', 'migrate', 'seed']).status !== 0) fail('migra
 if (!process.env.MEILI_HOST) {
   const searchPort = Number(process.env.SEARCH_PORT ?? DEV_SEARCH_PORT);
   process.env.MEILI_HOST = `http://127.0.0.1:${searchPort}`;
-  spawnTs('server/search/standin-main.ts', { name: 'search stand-in', env: { SEARCH_PORT: String(searchPort) } });
+  spawnTs('server/search/standin/main.ts', { name: 'search stand-in', env: { SEARCH_PORT: String(searchPort) } });
   await waitForHttp(`${process.env.MEILI_HOST}/health`);
 }
 
