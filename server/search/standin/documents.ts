@@ -7,6 +7,9 @@ export const isObject = (value: unknown): value is Doc => typeof value === 'obje
 
 /** The scalar values at a dotted attribute path, arrays and nested objects flattened. */
 export function valuesAt(value: unknown, path: string): (string | number | boolean)[] {
+  // Most attributes are top-level scalars: answered without splitting the path.
+  const top = isObject(value) && !path.includes('.') ? value[path] : undefined;
+  if (typeof top === 'string' || typeof top === 'number' || typeof top === 'boolean') return [top];
   const [head, ...rest] = path === '' ? [] : path.split('.');
   if (Array.isArray(value)) return value.flatMap((item) => valuesAt(item, path));
   if (head !== undefined) return isObject(value) && Object.hasOwn(value, head) ? valuesAt(value[head], rest.join('.')) : [];

@@ -158,7 +158,10 @@ export class StandinIndex {
     const facetDistribution: Record<string, Record<string, number>> = {};
     for (const facet of facets) {
       const counts: Record<string, number> = {};
-      for (const { entry: { doc } } of candidates) for (const value of new Set(valuesAt(doc, facet).map(String))) counts[value] = (counts[value] ?? 0) + 1;
+      for (const { entry } of candidates) {
+        const values = valuesAt(entry.doc, facet);
+        for (const value of values.length > 1 ? new Set(values.map(String)) : values) counts[String(value)] = (counts[String(value)] ?? 0) + 1;
+      }
       // Meilisearch's defaults: values in alphabetical order, at most 100 per facet.
       facetDistribution[facet] = Object.fromEntries(Object.entries(counts).sort(([a], [b]) => (a < b ? -1 : 1)).slice(0, 100));
     }

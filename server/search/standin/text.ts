@@ -70,17 +70,17 @@ function matchWord(text: MiniSearch<Doc>, query: string[], i: number, options: T
     return term[0] === word[0] || budget > 1 ? TYPO : 0;
   };
 
+  const qualities = new Map<string, number>(); // the same terms recur across documents
   const hits = new Map<string, WordHit>();
   for (const result of text.search(tree, { fields: options.searchOn })) {
-    let best = 0;
-    const fields = new Set<string>();
-    for (const [term, inFields] of Object.entries(result.match)) {
-      const q = quality(term);
+    const hit: WordHit = { quality: 0, fields: [] };
+    for (const term in result.match) {
+      const q = qualities.get(term) ?? qualities.set(term, quality(term)).get(term)!;
       if (q === 0) continue;
-      best = Math.max(best, q);
-      for (const field of inFields) fields.add(field);
+      hit.quality = Math.max(hit.quality, q);
+      for (const field of result.match[term]!) if (!hit.fields.includes(field)) hit.fields.push(field);
     }
-    if (best > 0) hits.set(String(result.id), { quality: best, fields: [...fields] });
+    if (hit.quality > 0) hits.set(String(result.id), hit);
   }
   return hits;
 }
@@ -113,7 +113,7 @@ export function matchText(text: MiniSearch<Doc>, q: string, options: TextOptions
       match.words++;
       if (hit.quality === TYPO) match.typos++;
       if (hit.quality === EXACT) match.exact++;
-      match.attribute = Math.min(match.attribute, ...hit.fields.map(rank));
+      for (const field of hit.fields) match.attribute = Math.min(match.attribute, rank(field));
       together = together ? together.filter((f) => hit.fields.includes(f)) : hit.fields;
     }
     // No word positions here: "close together" is approximated as "all in one attribute".
