@@ -10,6 +10,7 @@ export function valuesAt(value: unknown, path: string): (string | number | boole
   // Most attributes are top-level scalars: answered without splitting the path.
   const top = isObject(value) && !path.includes('.') ? value[path] : undefined;
   if (typeof top === 'string' || typeof top === 'number' || typeof top === 'boolean') return [top];
+  if (Array.isArray(top) && top.every((item) => typeof item === 'string')) return top;
   const [head, ...rest] = path === '' ? [] : path.split('.');
   if (Array.isArray(value)) return value.flatMap((item) => valuesAt(item, path));
   if (head !== undefined) return isObject(value) && Object.hasOwn(value, head) ? valuesAt(value[head], rest.join('.')) : [];

@@ -102,12 +102,14 @@ export class StandinIndex {
   }
 
   /** Adds or replaces whole documents (POST /documents). Fails the task, changing nothing, if one lacks its id. */
-  addDocuments(documents: Doc[], primaryKey?: string): number {
+  addDocuments(sent: Doc[], primaryKey?: string): number {
     // Meilisearch docs, "Primary key": without one, it is the one attribute whose name ends in "id".
     const inferred = this.primaryKey === null;
-    this.primaryKey ??= primaryKey ?? Object.keys(documents[0] ?? {}).find((key) => /id$/i.test(key)) ?? null;
+    this.primaryKey ??= primaryKey ?? Object.keys(sent[0] ?? {}).find((key) => /id$/i.test(key)) ?? null;
     const key = this.primaryKey;
     if (!key) throw new MeiliError(400, 'index_primary_key_no_candidate_found', 'The primary key inference failed as the engine did not find any field ending with `id` in its name.');
+    // The same id twice in one payload: the last one wins, as in Meilisearch.
+    const documents = [...new Map(sent.map((doc) => [String(doc[key]), doc])).values()];
     const bad = documents.find((doc) => !(typeof doc[key] === 'string' || Number.isInteger(doc[key])) || !/^[A-Za-z0-9_-]{1,511}$/.test(String(doc[key])));
     if (bad) throw new MeiliError(400, 'missing_document_id', `Document doesn't have a valid \`${key}\` attribute: \`${JSON.stringify(bad).slice(0, 200)}\`.`);
     const known = new Set(this.#fields);
@@ -119,7 +121,7 @@ export class StandinIndex {
     // A new primary key, or a new attribute while every attribute is searchable: the text index is rebuilt.
     if (inferred || this.#searchable().some((field) => !known.has(field))) this.#rebuildText();
     else this.#text.addAll(documents);
-    return documents.length;
+    return sent.length;
   }
 
   clear(): number {
@@ -150,7 +152,7 @@ export class StandinIndex {
     const text = matchOnce(`${q}\u0000${searchOn.join(',')}`, () => matchText(this.#text, q, { searchable: this.#fields, searchOn, synonyms }));
     const candidates: Ranked[] = [];
     const consider = (entry: Entry | undefined, match?: TextMatch) => {
-      if (entry && (!predicate || predicate(entry.doc))) candidates.push({ entry, text: match, keys: sort.map((s) => valuesAt(entry.doc, s.attribute)[0]) });
+      if (entry && (!predicate || predicate(entry.doc))) candidates.push({ entry, text: match, keys: sort.length ? sort.map((s) => valuesAt(entry.doc, s.attribute)[0]) : [] });
     };
     if (text) for (const [id, match] of text) consider(this.#docs.get(id), match);
     else for (const entry of this.#docs.values()) consider(entry);

@@ -26,10 +26,10 @@ function syntax(detail: string): MeiliError {
 const unquote = (token: string) => (/^["']/.test(token) ? token.slice(1, -1).replace(/\\(.)/g, '$1') : token);
 const keyword = (token: string | undefined, word: string) => token?.toUpperCase() === word;
 
-/** A leaf equals a filter value as Meilisearch compares them: numbers as numbers, text case-insensitively. */
+/** A leaf equals a filter value (given in lower case) as Meilisearch compares them: numbers as numbers, text case-insensitively. */
 function equals(leaf: unknown, value: string): boolean {
   if (typeof leaf === 'number') return value.trim() !== '' && Number(value) === leaf;
-  return String(leaf).toLowerCase() === value.toLowerCase();
+  return String(leaf).toLowerCase() === value;
 }
 
 /** Recursive descent over the tokens of one filter string. */
@@ -91,7 +91,10 @@ class Parser {
       throw new MeiliError(400, 'invalid_search_filter', `Attribute \`${attribute}\` is not filterable. Available filterable attributes are: \`${this.filterable.join(', ')}\`.`);
     }
     const operator = this.#next();
-    const has = (values: string[]) => (doc: Doc) => valuesAt(doc, attribute).some((leaf) => values.some((v) => equals(leaf, v)));
+    const has = (values: string[]) => {
+      const wanted = values.map((v) => v.toLowerCase());
+      return (doc: Doc) => valuesAt(doc, attribute).some((leaf) => wanted.some((v) => equals(leaf, v)));
+    };
     if (operator === '=') return has([unquote(this.#next())]);
     if (operator === '!=') {
       const equal = has([unquote(this.#next())]);
