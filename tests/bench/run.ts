@@ -40,9 +40,11 @@ const latency = (values: number[]): Latency => ({ p50: ms(percentile(values, 50)
  * `concurrency` clients each sending requests until `total` have been sent; latencies in ms.
  * With `everyMs`, each client sends at most one request per `everyMs` (a person typing: one
  * search per keystroke), starting staggered; without it, the next as soon as the last is answered.
+ * A failed request counts with the time it took to fail, and in `failed`.
  */
-async function load(concurrency: number, total: number, send: (i: number) => Promise<void>, everyMs = 0): Promise<Latency & { perSecond: number }> {
+async function load(concurrency: number, total: number, send: (i: number) => Promise<void>, everyMs = 0): Promise<Latency & { perSecond: number; failed: number }> {
   const latencies: number[] = [];
+  let failed = 0;
   let next = 0;
   const started = performance.now();
   const pause = (until: number) => new Promise((resolve) => setTimeout(resolve, Math.max(0, until - performance.now())));
@@ -53,13 +55,13 @@ async function load(concurrency: number, total: number, send: (i: number) => Pro
         if (everyMs) await pause(slot);
         const i = next++;
         const t0 = performance.now();
-        await send(i);
+        await send(i).catch(() => failed++);
         latencies.push(performance.now() - t0);
         slot = Math.max(slot + everyMs, performance.now());
       }
     }),
   );
-  return { ...latency(latencies), perSecond: Math.round(total / ((performance.now() - started) / 1000)) };
+  return { ...latency(latencies), perSecond: Math.round(total / ((performance.now() - started) / 1000)), failed };
 }
 
 function child(entry: string, env: Record<string, string>): ChildProcess {
@@ -143,23 +145,25 @@ const engineSearches = (q: string, i: number) => catalogueSearches(PartListQuery
 async function searchOverhead() {
   const viaApi: number[] = [];
   const direct: number[] = [];
+  let failed = 0;
   for (let i = 0; i < 700; i++) {
     const q = QUERIES[i % QUERIES.length]!;
     const a = performance.now();
-    await call(searchPath(q, i));
+    const answered = await call(searchPath(q, i)).then(() => true, () => false);
     const b = performance.now();
-    await search.client.multiSearch({ queries: engineSearches(q, i).map((s) => ({ ...s, indexUid: PARTS_INDEX })) });
+    const answeredDirect = await search.client.multiSearch({ queries: engineSearches(q, i).map((s) => ({ ...s, indexUid: PARTS_INDEX })) }).then(() => true, () => false);
     const c = performance.now();
-    if (i < 100) continue; // warm-up
+    if (!answered || !answeredDirect) failed++;
+    if (i < 100 || !answered || !answeredDirect) continue; // warm-up
     viaApi.push(b - a);
     direct.push(c - b);
   }
-  const result = { api: latency(viaApi), engineOverHttp: latency(direct), addedAtP95: ms(percentile(viaApi, 95) - percentile(direct, 95)) };
+  const result = { api: latency(viaApi), engineOverHttp: latency(direct), addedAtP95: ms(percentile(viaApi, 95) - percentile(direct, 95)), failed };
   const line: Line = {
     what: `API's own overhead, ${allParts} parts`,
     figure: `API p50 ${result.api.p50} / p95 ${result.api.p95} ms; engine over HTTP p50 ${result.engineOverHttp.p50} / p95 ${result.engineOverHttp.p95} ms: adds ${result.addedAtP95} ms at p95`,
     target: 'adds ≤ 5 ms at p95',
-    met: result.addedAtP95 <= 5,
+    met: result.addedAtP95 <= 5 && failed === 0,
   };
   return { key: 'searchOverhead', result: { ...result, parts: allParts, target: line.target, met: line.met }, lines: [line] };
 }
@@ -168,12 +172,12 @@ async function searchOverhead() {
 async function typing(partsIndexed: number, target: number | null) {
   const TYPING_MS = 150;
   await load(4, 40, (i) => call(searchPath(KEYSTROKES[i % KEYSTROKES.length]!, i)).then(() => {}));
-  const result = await load(4, 600, (i) => call(searchPath(KEYSTROKES[i % KEYSTROKES.length]!, i)).then(() => {}), TYPING_MS);
+  const result = await load(4, partsIndexed > 10_000 ? 300 : 600, (i) => call(searchPath(KEYSTROKES[i % KEYSTROKES.length]!, i)).then(() => {}), TYPING_MS);
   const line: Line = {
     what: `4 people typing (1 search / ${TYPING_MS} ms each), ${partsIndexed} parts`,
-    figure: `API p50 ${result.p50} / p95 ${result.p95} ms`,
+    figure: `API p50 ${result.p50} / p95 ${result.p95} ms${result.failed ? `, ${result.failed} of the searches failed (no answer within the API's 5 s)` : ''}`,
     target: target === null ? '— (reported)' : `p95 ≤ ${target} ms`,
-    met: target === null ? null : result.p95 <= target,
+    met: target === null ? null : result.p95 <= target && result.failed === 0,
   };
   return { key: `typing${partsIndexed}`, result: { ...result, everyMs: TYPING_MS, clients: 4, parts: partsIndexed, target: line.target, met: line.met }, lines: [line] };
 }
@@ -237,6 +241,7 @@ const lines: Line[] = [];
 try {
   const run = async (bench: Promise<{ key: string; result: unknown; lines: Line[] }>) => {
     const done = await bench;
+    console.log(`  ${new Date().toISOString().slice(11, 19)} ${done.key} done`);
     results[done.key] = done.result;
     lines.push(...done.lines);
   };

@@ -5,17 +5,19 @@ export type Doc = Record<string, unknown>;
 
 export const isObject = (value: unknown): value is Doc => typeof value === 'object' && value !== null && !Array.isArray(value);
 
+export const isScalar = (value: unknown): value is string | number | boolean => typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean';
+
 /** The scalar values at a dotted attribute path, arrays and nested objects flattened. */
 export function valuesAt(value: unknown, path: string): (string | number | boolean)[] {
   // Most attributes are top-level scalars: answered without splitting the path.
   const top = isObject(value) && !path.includes('.') ? value[path] : undefined;
-  if (typeof top === 'string' || typeof top === 'number' || typeof top === 'boolean') return [top];
+  if (isScalar(top)) return [top];
   if (Array.isArray(top) && top.every((item) => typeof item === 'string')) return top;
   const [head, ...rest] = path === '' ? [] : path.split('.');
   if (Array.isArray(value)) return value.flatMap((item) => valuesAt(item, path));
   if (head !== undefined) return isObject(value) && Object.hasOwn(value, head) ? valuesAt(value[head], rest.join('.')) : [];
   if (isObject(value)) return Object.values(value).flatMap((item) => valuesAt(item, ''));
-  return typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean' ? [value] : [];
+  return isScalar(value) ? [value] : [];
 }
 
 /** Lower case without accents: how words and sort values compare. */

@@ -7,7 +7,7 @@ import type MiniSearch from 'minisearch';
 import { z } from 'zod';
 import { MeiliError } from './errors.ts';
 import { parseFilter } from './filter.ts';
-import { normalize, valuesAt, words, type Doc } from './documents.ts';
+import { isScalar, normalize, valuesAt, words, type Doc } from './documents.ts';
 import { createTextIndex, matchText, type TextMatch } from './text.ts';
 
 /** The settings the app sends; anything else is refused, so the fake never silently ignores one. */
@@ -161,8 +161,9 @@ export class StandinIndex {
     for (const facet of facets) {
       const counts: Record<string, number> = {};
       for (const { entry } of candidates) {
-        const values = valuesAt(entry.doc, facet);
-        for (const value of values.length > 1 ? new Set(values.map(String)) : values) counts[String(value)] = (counts[String(value)] ?? 0) + 1;
+        const value = entry.doc[facet];
+        if (isScalar(value)) counts[String(value)] = (counts[String(value)] ?? 0) + 1;
+        else for (const each of new Set(valuesAt(entry.doc, facet).map(String))) counts[each] = (counts[each] ?? 0) + 1;
       }
       // Meilisearch's defaults: values in alphabetical order, at most 100 per facet.
       facetDistribution[facet] = Object.fromEntries(Object.entries(counts).sort(([a], [b]) => (a < b ? -1 : 1)).slice(0, 100));

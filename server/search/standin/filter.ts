@@ -3,7 +3,7 @@
 // filter becomes a plain predicate checked against each document.
 
 import { MeiliError } from './errors.ts';
-import { valuesAt, type Doc } from './documents.ts';
+import { isScalar, valuesAt, type Doc } from './documents.ts';
 
 export type Predicate = (doc: Doc) => boolean;
 
@@ -29,7 +29,8 @@ const keyword = (token: string | undefined, word: string) => token?.toUpperCase(
 /** A leaf equals a filter value (given in lower case) as Meilisearch compares them: numbers as numbers, text case-insensitively. */
 function equals(leaf: unknown, value: string): boolean {
   if (typeof leaf === 'number') return value.trim() !== '' && Number(value) === leaf;
-  return String(leaf).toLowerCase() === value;
+  const text = String(leaf); // lower case keeps the length of the letters and digits codes are made of
+  return text.length === value.length && text.toLowerCase() === value;
 }
 
 /** Recursive descent over the tokens of one filter string. */
@@ -93,7 +94,10 @@ class Parser {
     const operator = this.#next();
     const has = (values: string[]) => {
       const wanted = values.map((v) => v.toLowerCase());
-      return (doc: Doc) => valuesAt(doc, attribute).some((leaf) => wanted.some((v) => equals(leaf, v)));
+      return (doc: Doc) => {
+        const value = doc[attribute];
+        return isScalar(value) ? wanted.some((v) => equals(value, v)) : valuesAt(doc, attribute).some((leaf) => wanted.some((v) => equals(leaf, v)));
+      };
     };
     if (operator === '=') return has([unquote(this.#next())]);
     if (operator === '!=') {
