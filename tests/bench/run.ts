@@ -236,7 +236,8 @@ async function indexOnly(count: number) {
 }
 
 // --- the run ------------------------------------------------------------------------------------------
-const results: Record<string, unknown> = { machine: { node: process.version, cpus: os.cpus().length }, at: new Date().toISOString(), indexing };
+// The load average beside the figures: on a shared machine other work slows every figure down.
+const results: Record<string, unknown> = { machine: { node: process.version, cpus: os.cpus().length, loadAverageAtStart: os.loadavg()[0] }, at: new Date().toISOString(), indexing };
 const lines: Line[] = [];
 try {
   const run = async (bench: Promise<{ key: string; result: unknown; lines: Line[] }>) => {
@@ -259,11 +260,13 @@ try {
   await context.db.$client.end();
 }
 
+Object.assign(results.machine as object, { loadAverageAtEnd: os.loadavg()[0] });
 mkdirSync('bench-results', { recursive: true });
 writeFileSync('bench-results/bench.json', `${JSON.stringify(results, null, 2)}\n`);
 const mark = (met: boolean | null) => (met === null ? '' : met ? 'met' : 'NOT MET');
 const width = Math.max(...lines.map((l) => l.what.length));
 console.log('');
 for (const l of lines) console.log(`${l.what.padEnd(width)}  ${l.figure}   target ${l.target}  ${mark(l.met)}`);
+console.log(`load average (1 min) ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores: other work on this machine slows every figure`);
 console.log('not yet measured (features not built): concurrent reservations, price-list import, label PDFs');
 console.log('written to bench-results/bench.json');

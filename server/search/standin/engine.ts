@@ -56,7 +56,6 @@ type SortValue = string | number | boolean | undefined;
 type Ranked = { entry: Entry; text: TextMatch | undefined; keys: SortValue[] };
 
 export class StandinIndex {
-  readonly createdAt = new Date().toISOString();
   #settings: Settings = structuredClone(DEFAULTS);
   #docs = new Map<string, Entry>();
   #added = 0;
@@ -70,10 +69,6 @@ export class StandinIndex {
 
   get size(): number {
     return this.#docs.size;
-  }
-
-  get settings(): Settings {
-    return this.#settings;
   }
 
   /** The searchable attributes in ranking order: as set, or every attribute seen, in order of appearance. */
@@ -206,9 +201,5 @@ export class StandinIndex {
     const fieldDistribution: Record<string, number> = {};
     for (const { doc } of this.#docs.values()) for (const key of Object.keys(doc)) fieldDistribution[key] = (fieldDistribution[key] ?? 0) + 1;
     return { numberOfDocuments: this.#docs.size, isIndexing: false, fieldDistribution };
-  }
-
-  info(): Doc {
-    return { uid: this.uid, primaryKey: this.primaryKey, createdAt: this.createdAt, updatedAt: new Date().toISOString() };
   }
 }
