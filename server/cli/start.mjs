@@ -4,7 +4,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { ensureNodeModules, ensurePostgres, fail, log, newestMtime, onShutdown, root, spawnChild, spawnTs, waitForHttp } from './bootstrap.mjs';
-import { DEV_PG_PORT, DEV_SEARCH_PORT, DEMO_SIGN_INS } from './settings.mjs';
+import { DEV_PG_PORT, DEV_SEARCH_PORT, DEMO_SIGN_INS, STANDIN_NODE_OPTIONS } from './settings.mjs';
 
 const dev = process.argv.includes('--dev');
 const port = Number(process.env.PORT ?? 3000);
@@ -30,7 +30,7 @@ if (tsx(['server/cli/db-tasks.ts', 'migrate', 'seed']).status !== 0) fail('migra
 if (!process.env.MEILI_HOST) {
   const searchPort = Number(process.env.SEARCH_PORT ?? DEV_SEARCH_PORT);
   process.env.MEILI_HOST = `http://127.0.0.1:${searchPort}`;
-  spawnTs('server/search/standin-main.ts', { name: 'search stand-in', env: { SEARCH_PORT: String(searchPort) } });
+  spawnTs('server/search/standin/main.ts', { name: 'search stand-in', env: { SEARCH_PORT: String(searchPort), NODE_OPTIONS: STANDIN_NODE_OPTIONS } });
   await waitForHttp(`${process.env.MEILI_HOST}/health`);
 }
 

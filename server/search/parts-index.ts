@@ -34,10 +34,24 @@ export interface PartDocument {
   thumbnailId: string | null;
 }
 
+/**
+ * Words the trade uses for the same thing. Meilisearch reads each synonym entry one way, so every
+ * word of a group lists the others; a real server and the stand-in both expand the query with them.
+ */
+const SYNONYM_GROUPS = [
+  ['earth', 'ground', 'bonding', 'grounding'],
+  ['cover', 'guard', 'protection', 'shroud'],
+  ['bracket', 'mount'],
+  ['feet', 'foot', 'legs'],
+];
+
+const synonyms = Object.fromEntries(SYNONYM_GROUPS.flatMap((group) => group.map((word) => [word, group.filter((other) => other !== word)])));
+
 export const PARTS_INDEX_SETTINGS = {
   searchableAttributes: ['sku', 'name', 'gtin', 'supplierSkus', 'makerName', 'categoryLabel', 'ranges', 'attributeText', 'description'],
   filterableAttributes: ['category', 'maker', 'ranges', 'lifecycle', 'inStock', 'archived', 'sku', 'gtin', 'gtin14', 'supplierSkus'],
   sortableAttributes: ['sku', 'name', 'category', 'makerName'],
+  synonyms,
   // Totals and CSV exports page past Meilisearch's default cap of 1,000 hits.
   pagination: { maxTotalHits: 20_000 },
 };

@@ -6,7 +6,7 @@ import type { Express } from 'express';
 import { createApp, createServices, type AppDeps } from '../../server/app.ts';
 import { createAuth, type Auth } from '../../server/auth.ts';
 import { createSearchClient } from '../../server/search/client.ts';
-import { startSearchStandin } from '../../server/search/standin.ts';
+import { startSearchStandin } from '../../server/search/standin/server.ts';
 import type { Db } from '../../server/db/client.ts';
 import type { Role } from '../../shared/roles.ts';
 import { DEMO_PASSWORD, makeUser } from '../../seed/factories.ts';

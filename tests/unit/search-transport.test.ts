@@ -6,7 +6,7 @@ import type { AddressInfo } from 'node:net';
 import { once } from 'node:events';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Meilisearch, MeilisearchApiError, MeilisearchRequestError, MeilisearchRequestTimeOutError } from 'meilisearch';
-import { startSearchStandin, type RunningSearchStandin } from '../../server/search/standin.ts';
+import { startSearchStandin, type RunningSearchStandin } from '../../server/search/standin/server.ts';
 import { createSearchTransport } from '../../server/search/transport.ts';
 
 let standin: RunningSearchStandin;
