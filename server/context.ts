@@ -1,7 +1,7 @@
 import path from 'node:path';
-import { pino } from 'pino';
 import type { Env } from './env.ts';
 import { createDb } from './db/client.ts';
+import { createLogger } from './logger.ts';
 import { createAuth } from './auth.ts';
 import { createSearchClient } from './search/client.ts';
 import { localSecret } from './local-secret.ts';
@@ -10,7 +10,7 @@ import { createLocalFileStore } from './storage/files.ts';
 
 /** Everything createApp needs, built from the environment (server, CLI tasks and benchmarks share it). */
 export function buildContext(env: Env): AppOptions {
-  const logger = pino({ level: env.LOG_LEVEL });
+  const logger = createLogger(env.LOG_LEVEL);
   const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST === '0.0.0.0' ? '127.0.0.1' : env.HOST}:${env.PORT}`;
   // Local addresses are trusted only for a local run; with PUBLIC_URL set, only that origin is.
   const trustedOrigins = env.PUBLIC_URL ? [env.PUBLIC_URL] : [...new Set([publicUrl, `http://localhost:${env.PORT}`, `http://127.0.0.1:${env.PORT}`])];

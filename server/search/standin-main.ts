@@ -19,3 +19,4 @@ function shutdown(): void {
 }
 process.once('SIGTERM', shutdown);
 process.once('SIGINT', shutdown);
+process.once('SIGHUP', shutdown);

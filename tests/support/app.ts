@@ -1,6 +1,7 @@
 // A real app for a test file: its own cloned database, its own search stand-in, the real auth.
 import path from 'node:path';
-import { pino } from 'pino';
+import type { Logger } from 'pino';
+import { createLogger } from '../../server/logger.ts';
 import supertest from 'supertest';
 import type { Express } from 'express';
 import { createApp, createServices, type AppDeps } from '../../server/app.ts';
@@ -33,7 +34,7 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string } = {}): Promise<TestApp> {
+export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string; logger?: Logger; trustProxy?: string | number | boolean } = {}): Promise<TestApp> {
   const { db, url, drop } = await createTestDb();
   const standin = await startSearchStandin({ port: 0 });
   const baseURL = options.baseURL ?? TEST_ORIGIN;
@@ -47,7 +48,8 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
     auth,
     search,
     files: createLocalFileStore(filesDir),
-    logger: pino({ level: process.env.TEST_LOG_LEVEL ?? 'silent' }),
+    logger: options.logger ?? createLogger(process.env.TEST_LOG_LEVEL ?? 'silent'),
+    trustProxy: options.trustProxy,
     trustedOrigins,
     clientDir: options.clientDir ? path.resolve(options.clientDir) : undefined,
   };
