@@ -11,7 +11,8 @@ export type FixtureKey =
   | 'mediaToDelete' // a photo the delete route may remove
   | 'plan' // a plan saved by an installer of company A (the "own" company)
   | 'range' // a demo range
-  | 'user'; // a user the admin routes may change
+  | 'user' // a user the admin routes may change
+  | 'customer'; // company A (the installer's own), for staff saving plans for a customer
 export type Fixtures = Record<FixtureKey, string>;
 
 export interface OperationAccess {
@@ -70,7 +71,7 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'POST /api/stack-plans': { allow: planners, body: plan },
   'POST /api/stack-plans/bom.csv': { allow: planners, body: plan },
   'POST /api/stack-plans/plan.pdf': { allow: planners, body: plan },
-  'POST /api/stack-plans/saved': { allow: planners, body: (f) => ({ name: 'Matrix check', request: plan(f) }) },
+  'POST /api/stack-plans/saved': { allow: planners, body: (f) => ({ name: 'Matrix check', companyId: f.customer, request: plan(f) }) },
   'GET /api/stack-plans/saved': { allow: planners },
   'GET /api/stack-plans/saved/{id}': { allow: planners, companyOwned: true, params: { id: 'plan' } },
   'GET /api/stack-plans/saved/{id}/bom.csv': { allow: planners, companyOwned: true, params: { id: 'plan' } },
