@@ -25,7 +25,9 @@ export const REDACT_PATHS = [
 ];
 
 /** Query parameters that carry a secret (reset and verification links, callbacks). */
-const SECRET_PARAM = /([?&](?:token|code|secret|password|key|signature|access_token|refresh_token|id_token)=)[^&#]*/gi;
+const SECRET_NAMES = 'token|code|secret|password|key|signature|access_token|refresh_token|id_token';
+const SECRET_PARAM = new RegExp(`([?&](?:${SECRET_NAMES})=)[^&#]*`, 'gi');
+const SECRET_KEY = new RegExp(`^(?:${SECRET_NAMES})$`, 'i');
 
 export function redactUrl(url: string): string {
   return url.replace(SECRET_PARAM, '$1[Redacted]');
@@ -41,6 +43,8 @@ export function redactErrorText(text: string): string {
 
 function errSerializer(err: Error) {
   const out = stdSerializers.err(err) as Record<string, unknown>;
+  // A failed query keeps its parameters beside the message too.
+  if ('params' in out) out.params = '[Redacted]';
   for (const key of ['message', 'stack']) if (typeof out[key] === 'string') out[key] = redactErrorText(out[key] as string);
   const cause = out.cause as Record<string, unknown> | undefined;
   if (cause && typeof cause === 'object') {
@@ -51,7 +55,11 @@ function errSerializer(err: Error) {
 
 /** For pino-http: its request serializer's output with secret query parameters masked. */
 export const logSerializers = {
-  req: (req: { url?: string } & Record<string, unknown>) => ({ ...req, url: req.url === undefined ? undefined : redactUrl(req.url) }),
+  req: (req: { url?: string; query?: Record<string, unknown> } & Record<string, unknown>) => ({
+    ...req,
+    url: req.url === undefined ? undefined : redactUrl(req.url),
+    query: req.query && Object.fromEntries(Object.entries(req.query).map(([k, v]) => [k, SECRET_KEY.test(k) ? '[Redacted]' : v])),
+  }),
   err: errSerializer,
 };
 
