@@ -1,0 +1,85 @@
+// Whatever ends `npm start` stops everything it started: signals to the start script, its parent
+// (npm) going away without passing a signal on, and the start script itself killed outright.
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdtempSync } from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+
+const fixture = fileURLToPath(new URL('../support/start-fixture.mjs', import.meta.url));
+const root = fileURLToPath(new URL('../..', import.meta.url));
+
+async function freePort(): Promise<number> {
+  const server = net.createServer().listen(0, '127.0.0.1');
+  await new Promise((r) => server.once('listening', r));
+  const { port } = server.address() as net.AddressInfo;
+  await new Promise((r) => server.close(r));
+  return port;
+}
+
+const alive = (pid: number) => {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+};
+
+const portOpen = (port: number) =>
+  new Promise<boolean>((resolve) => {
+    const socket = net.connect(port, '127.0.0.1');
+    socket.once('connect', () => (socket.destroy(), resolve(true)));
+    socket.once('error', () => resolve(false));
+  });
+
+/** Starts the fixture, directly or under a stand-in for npm that passes no signal on; resolves once its child serves. */
+async function start(viaParent: boolean) {
+  const port = await freePort();
+  const marker = path.join(mkdtempSync(path.join(os.tmpdir(), 'stackyard-stop-')), 'cleaned');
+  const args = viaParent
+    ? ['-e', `require('node:child_process').spawn(process.execPath, ${JSON.stringify([fixture, String(port), marker])}, { stdio: 'inherit' }); setInterval(() => {}, 1000);`]
+    : [fixture, String(port), marker];
+  const proc: ChildProcess = spawn(process.execPath, args, { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] });
+  const line = await new Promise<string>((resolve, reject) => {
+    let out = '';
+    proc.stdout!.on('data', (c) => {
+      out += c;
+      const ready = out.split('\n').find((l) => l.startsWith('{"ready"'));
+      if (ready) resolve(ready);
+    });
+    proc.once('exit', (code) => reject(new Error(`fixture ended early (${code}): ${out}`)));
+  });
+  const { child } = JSON.parse(line) as { child: number };
+  expect(await portOpen(port)).toBe(true);
+  return { proc, port, marker, child };
+}
+
+async function expectAllStopped(s: Awaited<ReturnType<typeof start>>, { cleanedUp = true } = {}) {
+  await expect.poll(() => alive(s.child), { timeout: 15_000, interval: 100 }).toBe(false);
+  await expect.poll(() => portOpen(s.port), { timeout: 5_000, interval: 100 }).toBe(false);
+  if (cleanedUp) await expect.poll(() => existsSync(s.marker), { timeout: 5_000, interval: 100 }).toBe(true);
+}
+
+describe('stopping npm start', () => {
+  it.each(['SIGTERM', 'SIGINT', 'SIGHUP'] as const)('%s to the start script stops its children and cleans up', async (signal) => {
+    const s = await start(false);
+    s.proc.kill(signal);
+    await expectAllStopped(s);
+  }, 60_000);
+
+  it('its parent (npm) ending without passing the signal on stops everything too', async () => {
+    const s = await start(true);
+    s.proc.kill('SIGTERM'); // the parent goes; the start script is now an orphan and must notice
+    await expectAllStopped(s);
+  }, 60_000);
+
+  it('the start script killed outright still takes its children with it', async () => {
+    const s = await start(false);
+    s.proc.kill('SIGKILL');
+    // Nothing can run in a killed process, so no cleanup: but its children notice and stop.
+    await expectAllStopped(s, { cleanedUp: false });
+  }, 60_000);
+});
