@@ -195,15 +195,29 @@ export function onShutdown(cleanup) {
   };
   for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, () => void shutdown(signal));
   const parent = process.ppid;
+  // Under npm the chain is npm → sh -c → us, and the shell may outlive npm: watch npm too.
+  const watched = [parent, ...(process.env.npm_lifecycle_event ? [parentOf(parent)].filter((p) => p > 1) : [])];
   setInterval(() => {
     let gone = process.ppid !== parent;
-    try {
-      if (!gone) process.kill(parent, 0);
-    } catch {
-      gone = true;
+    for (const pid of watched) {
+      try {
+        if (!gone) process.kill(pid, 0);
+      } catch {
+        gone = true;
+      }
     }
     if (gone) void shutdown('parent process gone');
   }, 500).unref();
+}
+
+/** A process's parent id, from /proc (Linux); 0 when it cannot be read. */
+function parentOf(pid) {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    return Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]) || 0;
+  } catch {
+    return 0;
+  }
 }
 
 /** Newest modification time under the given paths (files or folders). */

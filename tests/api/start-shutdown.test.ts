@@ -36,12 +36,13 @@ const portOpen = (port: number) =>
   });
 
 /** Starts the fixture, directly or under a stand-in for npm that passes no signal on; resolves once its child serves. */
-async function start(viaParent: boolean) {
+async function start(via: 'direct' | 'parent' | 'npm-shell') {
   const port = await freePort();
   const marker = path.join(mkdtempSync(path.join(os.tmpdir(), 'stackyard-stop-')), 'cleaned');
-  const args = viaParent
-    ? ['-e', `require('node:child_process').spawn(process.execPath, ${JSON.stringify([fixture, String(port), marker])}, { stdio: 'inherit' }); setInterval(() => {}, 1000);`]
-    : [fixture, String(port), marker];
+  const command = [process.execPath, fixture, String(port), marker];
+  // 'npm-shell' is npm's own chain: npm → sh -c "node …" → the start script; the shell outlives npm.
+  const spawnIt = via === 'npm-shell' ? `spawn('sh', ['-c', ${JSON.stringify(command.join(' '))}], { stdio: 'inherit', env: { ...process.env, npm_lifecycle_event: 'start' } })` : `spawn(${JSON.stringify(command[0])}, ${JSON.stringify(command.slice(1))}, { stdio: 'inherit' })`;
+  const args = via === 'direct' ? command.slice(1) : ['-e', `const { spawn } = require('node:child_process'); ${spawnIt}; setInterval(() => {}, 1000);`];
   const proc: ChildProcess = spawn(process.execPath, args, { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] });
   const line = await new Promise<string>((resolve, reject) => {
     let out = '';
@@ -65,19 +66,19 @@ async function expectAllStopped(s: Awaited<ReturnType<typeof start>>, { cleanedU
 
 describe('stopping npm start', () => {
   it.each(['SIGTERM', 'SIGINT', 'SIGHUP'] as const)('%s to the start script stops its children and cleans up', async (signal) => {
-    const s = await start(false);
+    const s = await start('direct');
     s.proc.kill(signal);
     await expectAllStopped(s);
   }, 60_000);
 
-  it('its parent (npm) ending without passing the signal on stops everything too', async () => {
-    const s = await start(true);
-    s.proc.kill('SIGTERM'); // the parent goes; the start script is now an orphan and must notice
+  it.each(['parent', 'npm-shell'] as const)('its %s ending without passing the signal on stops everything too', async (via) => {
+    const s = await start(via);
+    s.proc.kill('SIGTERM'); // npm goes; the start script (or the shell between) is now an orphan and must notice
     await expectAllStopped(s);
   }, 60_000);
 
   it('the start script killed outright still takes its children with it', async () => {
-    const s = await start(false);
+    const s = await start('direct');
     s.proc.kill('SIGKILL');
     // Nothing can run in a killed process, so no cleanup: but its children notice and stop.
     await expectAllStopped(s, { cleanedUp: false });
