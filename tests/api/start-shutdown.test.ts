@@ -6,7 +6,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 
 const fixture = fileURLToPath(new URL('../support/start-fixture.mjs', import.meta.url));
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -18,6 +18,12 @@ async function freePort(): Promise<number> {
   await new Promise((r) => server.close(r));
   return port;
 }
+
+/** Everything a test started, so a failing test leaves nothing running behind it. */
+const started: number[] = [];
+afterAll(() => {
+  for (const pid of started) if (alive(pid)) process.kill(pid, 'SIGKILL');
+});
 
 const alive = (pid: number) => {
   try {
@@ -53,7 +59,8 @@ async function start(via: 'direct' | 'parent' | 'npm-shell') {
     });
     proc.once('exit', (code) => reject(new Error(`fixture ended early (${code}): ${out}`)));
   });
-  const { child } = JSON.parse(line) as { child: number };
+  const { child, self } = JSON.parse(line) as { child: number; self: number };
+  started.push(child, self, proc.pid!);
   expect(await portOpen(port)).toBe(true);
   return { proc, port, marker, child };
 }
