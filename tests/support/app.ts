@@ -34,8 +34,8 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string; logger?: Logger; trustProxy?: string | number | boolean } = {}): Promise<TestApp> {
-  const { db, url, drop } = await createTestDb();
+export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string; logger?: Logger; trustProxy?: string | number | boolean; connectVia?: (url: string) => string } = {}): Promise<TestApp> {
+  const { db, url, drop } = await createTestDb(options.connectVia);
   const standin = await startSearchStandin({ port: 0 });
   const baseURL = options.baseURL ?? TEST_ORIGIN;
   const trustedOrigins = [baseURL];
