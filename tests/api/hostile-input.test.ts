@@ -49,7 +49,7 @@ beforeAll(async () => {
 }, 120_000);
 afterAll(async () => {
   const statuses = [...tally.byStatus.entries()].sort((a, b) => a[0] - b[0]).map(([s, n]) => `${s}×${n}`).join(' ');
-  console.log(`hostile input: ${tally.inputs} inputs tried on ${operations?.length ?? 0} operations and the sign-in route; answers ${statuses}; database compared after ${tally.dbChecks} refusals; 500s seen: ${tally.byStatus.get(500) ?? 0}`);
+  console.log(`hostile input: ${tally.inputs} inputs tried on ${operations?.length ?? 0} operations (as admin, and as an installer where installers may call) and the sign-in routes; answers ${statuses}; database compared after ${tally.dbChecks} refusals; 500s seen: ${tally.byStatus.get(500) ?? 0}`);
   await t?.close();
 });
 
@@ -145,12 +145,21 @@ function send(agent: supertest.Agent, op: OpenApiOperation, input: Input): super
 describe('hostile input on every route', () => {
   it('never answers 500 or a stack trace, always the envelope on refusal, and a refusal changes nothing', async () => {
     baseline = await snapshot();
+    const seed = Number(process.env.HOSTILE_SEED ?? 20261203);
     for (const op of operations) {
       // Signed in as an administrator, every gate is open: the input itself is what is tested.
       await fc.assert(
-        fc.asyncProperty(inputFor(op), (input) => attempt(`${op.key} ${JSON.stringify(input).slice(0, 400)}`, () => send(agents.admin, op, input))),
-        { numRuns: RUNS, seed: Number(process.env.HOSTILE_SEED ?? 20261203) },
+        fc.asyncProperty(inputFor(op), (input) => attempt(`admin: ${op.key} ${JSON.stringify(input).slice(0, 400)}`, () => send(agents.admin, op, input))),
+        { numRuns: RUNS, seed },
       );
+      // Installers take their own paths through the services (their company only): again as one.
+      const allow = ACCESS_TABLE[op.key]?.allow;
+      if (allow === 'signed-in' || (Array.isArray(allow) && allow.includes('installer'))) {
+        await fc.assert(
+          fc.asyncProperty(inputFor(op), (input) => attempt(`installer: ${op.key} ${JSON.stringify(input).slice(0, 400)}`, () => send(agents.installer, op, input))),
+          { numRuns: Math.ceil(RUNS / 2), seed: seed + 1 },
+        );
+      }
     }
     expect(tally.byStatus.get(500) ?? 0).toBe(0);
     expect(tally.inputs).toBeGreaterThanOrEqual(operations.length * RUNS);
