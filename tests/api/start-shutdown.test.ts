@@ -1,7 +1,7 @@
 // Whatever ends `npm start` stops everything it started: signals to the start script, its parent
 // (npm) going away without passing a signal on, and the start script itself killed outright.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdtempSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
@@ -42,14 +42,30 @@ const portOpen = (port: number) =>
   });
 
 /** Starts the fixture, directly or under a stand-in for npm that passes no signal on; resolves once its child serves. */
-async function start(via: 'direct' | 'parent' | 'npm-shell') {
+/** package.json's own start script, aimed at the fixture: run by the real npm, as `npm start` is. */
+function npmProject(port: number, marker: string) {
+  const script = (JSON.parse(readFileSync(path.join(root, 'package.json'), 'utf8')) as { scripts: { start: string } }).scripts.start;
+  expect(script).toContain('server/cli/start.mjs');
+  const dir = path.dirname(marker);
+  writeFileSync(path.join(dir, 'package.json'), JSON.stringify({ name: 'stop-check', private: true, scripts: { start: script.replace('server/cli/start.mjs', `${fixture} ${port} ${marker}`) } }));
+  return dir;
+}
+
+async function start(via: 'direct' | 'parent' | 'npm-shell' | 'npm') {
   const port = await freePort();
   const marker = path.join(mkdtempSync(path.join(os.tmpdir(), 'stackyard-stop-')), 'cleaned');
   const command = [process.execPath, fixture, String(port), marker];
+  if (via === 'npm') {
+    const proc = spawn('npm', ['start', '--silent'], { cwd: npmProject(port, marker), stdio: ['ignore', 'pipe', 'inherit'] });
+    return ready(proc, port, marker);
+  }
   // 'npm-shell' is npm's own chain: npm → sh -c "node …" → the start script; the shell outlives npm.
   const spawnIt = via === 'npm-shell' ? `spawn('sh', ['-c', ${JSON.stringify(command.join(' '))}], { stdio: 'inherit', env: { ...process.env, npm_lifecycle_event: 'start' } })` : `spawn(${JSON.stringify(command[0])}, ${JSON.stringify(command.slice(1))}, { stdio: 'inherit' })`;
   const args = via === 'direct' ? command.slice(1) : ['-e', `const { spawn } = require('node:child_process'); ${spawnIt}; setInterval(() => {}, 1000);`];
-  const proc: ChildProcess = spawn(process.execPath, args, { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] });
+  return ready(spawn(process.execPath, args, { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] }), port, marker);
+}
+
+async function ready(proc: ChildProcess, port: number, marker: string) {
   const line = await new Promise<string>((resolve, reject) => {
     let out = '';
     proc.stdout!.on('data', (c) => {
@@ -74,6 +90,12 @@ async function expectAllStopped(s: Awaited<ReturnType<typeof start>>, { cleanedU
 describe('stopping npm start', () => {
   it.each(['SIGTERM', 'SIGINT', 'SIGHUP'] as const)('%s to the start script stops its children and cleans up', async (signal) => {
     const s = await start('direct');
+    s.proc.kill(signal);
+    await expectAllStopped(s);
+  }, 60_000);
+
+  it.each(['SIGINT', 'SIGTERM', 'SIGHUP'] as const)('%s to npm itself (npm start run by the real npm) stops everything', async (signal) => {
+    const s = await start('npm');
     s.proc.kill(signal);
     await expectAllStopped(s);
   }, 60_000);
