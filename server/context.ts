@@ -23,5 +23,16 @@ export function buildContext(env: Env): AppOptions {
     signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
   });
   const search = createSearchClient({ host: env.MEILI_HOST ?? 'http://127.0.0.1:7701', apiKey: env.MEILI_API_KEY });
-  return { trustProxy: env.TRUST_PROXY === undefined ? undefined : /^\d+$/.test(env.TRUST_PROXY) ? Number(env.TRUST_PROXY) : env.TRUST_PROXY, db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
+  return { trustProxy: trustProxySetting(env.TRUST_PROXY), db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
+}
+
+/**
+ * TRUST_PROXY as Express's "trust proxy": a hop count ("1"), "true"/"false", or addresses and
+ * names ("loopback", "10.0.0.0/8, 10.1.2.3"). Unset: no forwarded address is believed.
+ */
+export function trustProxySetting(value: string | undefined): string | number | boolean {
+  const v = value?.trim();
+  if (!v || v === 'false') return false;
+  if (v === 'true') return true;
+  return /^\d+$/.test(v) ? Number(v) : v;
 }

@@ -14,6 +14,7 @@ import { createHttpServer } from '../../server/http/server.ts';
 import { makeUser, DEMO_PASSWORD } from '../../seed/factories.ts';
 import { seedDemo } from '../../seed/demo.ts';
 import { isCleanText } from '../../shared/contracts/text.ts';
+import { trustProxySetting } from '../../server/context.ts';
 
 let t: TestApp;
 const logLines: string[] = [];
@@ -165,6 +166,15 @@ describe('the sign-in rate limit', () => {
     } finally {
       await limited.close();
     }
+  });
+
+  it('reads TRUST_PROXY as Express expects it, trusting nobody when it is unset', () => {
+    expect(trustProxySetting(undefined)).toBe(false);
+    expect(trustProxySetting('')).toBe(false);
+    expect(trustProxySetting('false')).toBe(false);
+    expect(trustProxySetting('true')).toBe(true);
+    expect(trustProxySetting('1')).toBe(1);
+    expect(trustProxySetting('loopback, 10.0.0.0/8')).toBe('loopback, 10.0.0.0/8');
   });
 
   it('keys on the forwarded address when TRUST_PROXY names the proxy', async () => {
