@@ -28,7 +28,8 @@ async function toEnvelope(response: Response, requestId: string): Promise<Respon
     // not JSON: the status alone tells what happened
   }
   const code = typeof body.code === 'string' && /^[A-Z0-9_]{1,64}$/i.test(body.code) ? body.code.toLowerCase() : errorCodeForStatus(response.status);
-  const message = typeof body.message === 'string' && body.message ? body.message : defaultMessage(response.status);
+  // Its 4xx messages are for users ("Invalid email or password"); a 5xx message may describe internals.
+  const message = response.status < 500 && typeof body.message === 'string' && body.message ? body.message : defaultMessage(response.status);
   const headers = new Headers(response.headers);
   headers.set('content-type', 'application/json; charset=utf-8');
   headers.delete('content-length');

@@ -6,6 +6,9 @@ import { describe, expect, it } from 'vitest';
 import pg from 'pg';
 import { sql } from 'drizzle-orm';
 import { createDb, migrateDb, withSchemaLock } from '../../server/db/client.ts';
+import { createAuth } from '../../server/auth.ts';
+import { seedDemo, DEMO_SIGN_INS } from '../../seed/demo.ts';
+import { createTestDb } from '../support/db.ts';
 
 const journal = JSON.parse(readFileSync(new URL('../../drizzle/meta/_journal.json', import.meta.url), 'utf8')) as { entries: unknown[] };
 
@@ -62,4 +65,22 @@ describe('migrating at start from several instances', () => {
       }
     });
   });
+
+  it('seeds the demo scenario once when two instances seed at the same moment', async () => {
+    const { url, drop, db: first } = await createTestDb();
+    const second = createDb(url, { max: 3 });
+    try {
+      const instance = (db: typeof first) => {
+        const auth = createAuth({ db, baseURL: 'http://127.0.0.1:3999', secret: 'test-secret-test-secret-test-secret-0123', trustedOrigins: [], signInLimitPerMinute: 10 });
+        return withSchemaLock(db, () => seedDemo(db, auth));
+      };
+      const results = await Promise.all([instance(first), instance(second)]);
+      expect(results.map((r) => r.seeded).sort()).toEqual([false, true]);
+      const { rows } = await first.execute<{ n: string }>(sql`select count(*)::text as n from "user"`);
+      expect(Number(rows[0]!.n)).toBe(DEMO_SIGN_INS.length + 1); // the sign-ins plus one more office installer (seed/demo.ts)
+    } finally {
+      await second.$client.end();
+      await drop();
+    }
+  }, 60_000);
 });
