@@ -21,6 +21,7 @@ export function buildContext(env: Env): AppOptions {
     secret: env.AUTH_SECRET ?? localSecret(env.DATA_DIR),
     trustedOrigins,
     signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
+    logger,
   });
   const search = createSearchClient({ host: env.MEILI_HOST ?? 'http://127.0.0.1:7701', apiKey: env.MEILI_API_KEY });
   return { trustProxy: trustProxySetting(env.TRUST_PROXY), db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };

@@ -40,6 +40,8 @@ describe('the log', () => {
   it('holds no session token, cookie or password, even on 403 and 500 lines', async () => {
     const u = await makeUser(t.db, t.auth, { role: 'installer' });
     const agent = request.agent(t.app);
+    // The auth library's own lines (a wrong password) go to the same redacted log.
+    await agent.post('/api/auth/sign-in/email').set('origin', TEST_ORIGIN).send({ email: u.email, password: 'not-the-password' }).expect(401);
     const signIn = await agent.post('/api/auth/sign-in/email').set('origin', TEST_ORIGIN).send({ email: u.email, password: DEMO_PASSWORD }).expect(200);
     const cookie = String(signIn.headers['set-cookie']);
     const token = /session_token=([^;]+)/.exec(cookie)![1]!;
@@ -58,11 +60,13 @@ describe('the log', () => {
     expect(log).toMatch(/"statusCode":403/);
     expect(log).toMatch(/"statusCode":500/);
     expect(log).toMatch(/makers/);
+    expect(log).toMatch(/"from":"auth".*Invalid password/);
     // … and no secret is.
     expect(log).not.toContain(rawToken);
     expect(log).not.toContain(token);
     expect(log).not.toContain('reset-secret-123');
     expect(log).not.toContain(DEMO_PASSWORD);
+    expect(log).not.toContain('not-the-password');
     expect(log).toContain('[Redacted]');
   });
 });

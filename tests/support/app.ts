@@ -39,7 +39,8 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
   const standin = await startSearchStandin({ port: 0 });
   const baseURL = options.baseURL ?? TEST_ORIGIN;
   const trustedOrigins = [baseURL];
-  const auth = createAuth({ db, baseURL, secret: 'test-secret-test-secret-test-secret-0123', trustedOrigins, signInLimitPerMinute: options.signInLimitPerMinute ?? 1000 });
+  const logger = options.logger ?? createLogger(process.env.TEST_LOG_LEVEL ?? 'silent');
+  const auth = createAuth({ db, baseURL, secret: 'test-secret-test-secret-test-secret-0123', trustedOrigins, signInLimitPerMinute: options.signInLimitPerMinute ?? 1000, logger });
   const search = createSearchClient({ host: standin.url });
   let searchStopped = false;
   const filesDir = mkdtempSync(path.join(os.tmpdir(), 'stackyard-files-'));
@@ -48,7 +49,7 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
     auth,
     search,
     files: createLocalFileStore(filesDir),
-    logger: options.logger ?? createLogger(process.env.TEST_LOG_LEVEL ?? 'silent'),
+    logger,
     trustProxy: options.trustProxy,
     trustedOrigins,
     clientDir: options.clientDir ? path.resolve(options.clientDir) : undefined,
