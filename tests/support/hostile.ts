@@ -146,8 +146,12 @@ function places(value: unknown, out: [Record<string, unknown> | unknown[], strin
   return out;
 }
 
-export function applyMutations(value: unknown, mutations: Mutation[]): unknown {
-  let current: unknown = structuredClone(value);
+/** A private copy (JSON keeps an own "__proto__" key own): generated constants are shared between runs. */
+const fresh = (v: unknown): unknown => (v === undefined ? v : JSON.parse(JSON.stringify(v)));
+
+export function applyMutations(value: unknown, original: Mutation[]): unknown {
+  let current: unknown = fresh(value);
+  const mutations = original.map((m) => ('value' in m ? { ...m, value: fresh(m.value) } : m));
   for (const m of mutations) {
     if (m.kind === 'whole') {
       current = m.value;
