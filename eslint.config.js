@@ -25,4 +25,18 @@ export default tseslint.config(
       'no-restricted-imports': ['error', { patterns: [{ group: ['**/server/**', '**/src/**', '@/*'], message: 'shared/ runs in browser and server: it must not import from server/ or src/.' }] }],
     },
   },
+  {
+    // Every string a client can send goes through one schema that refuses NUL and broken Unicode.
+    files: ['shared/**/*.ts', 'server/routes/**/*.ts'],
+    ignores: ['shared/contracts/text.ts'],
+    rules: {
+      'no-restricted-syntax': [
+        'error',
+        {
+          selector: "CallExpression[callee.property.name='string']:matches([callee.object.name='z'], [callee.object.property.name='coerce'])",
+          message: 'Use text() from shared/contracts/text.ts (it refuses NUL and unpaired surrogates); chain .trim(), .max(), .uuid() … on it.',
+        },
+      ],
+    },
+  },
 );

@@ -5,14 +5,16 @@ import express, { Router } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Logger } from 'pino';
-import { toNodeHandler } from 'better-auth/node';
 import type { Db } from './db/client.ts';
 import { CLIENT_IP_HEADER, type Auth } from './auth.ts';
 import type { SearchClient } from './search/client.ts';
 import { Api } from './http/route.ts';
 import { createSessionCache, sessionMiddleware } from './middleware/session.ts';
 import { originCheck } from './middleware/origin-check.ts';
-import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
+import { apiNotFound, errorHandler, notFound } from './middleware/error-handler.ts';
+import { authHandler } from './http/auth-handler.ts';
+import { logSerializers } from './logger.ts';
+import { noStore } from './middleware/no-store.ts';
 import { createUserService, type UserService } from './services/users.ts';
 import { createCatalogueService, type CatalogueService } from './services/catalogue.ts';
 import { createMediaService, type MediaService } from './services/media.ts';
@@ -67,8 +69,9 @@ export function createApp(options: AppOptions) {
   const deps = createServices(options);
   const app = express();
   app.disable('x-powered-by');
-  // Behind a load balancer set TRUST_PROXY (e.g. 1 or its address) so req.ip is the real client.
-  app.set('trust proxy', options.trustProxy ?? 'loopback');
+  // Forwarded addresses are believed only when TRUST_PROXY names the hops that set them (e.g. 1 or
+  // the balancer's address); by default nobody may tell us the client's address, loopback included.
+  app.set('trust proxy', options.trustProxy ?? false);
 
   app.use(
     pinoHttp({
@@ -80,6 +83,7 @@ export function createApp(options: AppOptions) {
       },
       customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
       autoLogging: { ignore: (req) => req.url === '/api/health' },
+      serializers: logSerializers,
     }),
   );
   app.use(
@@ -94,18 +98,18 @@ export function createApp(options: AppOptions) {
   // better-auth reads the raw body itself, so it is mounted before the JSON parser.
   // Our origin check runs first: the library only checks origins when cookies are present,
   // which would let another site sign a visitor in to an account of its choosing.
-  app.use('/api/auth', originCheck(options.trustedOrigins), (req, _res, next) => {
+  app.use('/api/auth', noStore, originCheck(options.trustedOrigins), (req, _res, next) => {
     req.headers[CLIENT_IP_HEADER] = req.ip ?? req.socket.remoteAddress ?? 'unknown';
     // Signing out (here or everywhere) must take effect at once, not when remembered sessions expire.
     if (req.method !== 'GET' && !req.path.startsWith('/sign-in')) deps.sessionCache.clear();
     next();
   });
-  app.all('/api/auth/{*any}', toNodeHandler(options.auth));
+  app.all('/api/auth/{*any}', authHandler(options.auth));
   app.use('/api/auth', errorHandler);
 
   const router = Router();
   const api = new Api(router);
-  router.use(originCheck(options.trustedOrigins));
+  router.use(noStore, originCheck(options.trustedOrigins));
   router.use(express.json({ limit: '1mb' }));
   router.use(sessionMiddleware(options.auth, deps.sessionCache));
   systemRoutes(api, deps);
@@ -116,6 +120,7 @@ export function createApp(options: AppOptions) {
   let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {
     openapi ??= api.document();
+    res.setHeader('cache-control', 'no-cache'); // no user data: clients may keep it and revalidate
     res.json(openapi);
   });
   router.use(apiNotFound);
@@ -131,6 +136,7 @@ export function createApp(options: AppOptions) {
       res.sendFile(path.join(dir, 'index.html'));
     });
   }
+  app.use(notFound);
   app.use(errorHandler);
   return app;
 }

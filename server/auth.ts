@@ -3,6 +3,7 @@ import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import { admin } from 'better-auth/plugins';
 import { createAccessControl } from 'better-auth/plugins/access';
 import { adminAc, defaultStatements } from 'better-auth/plugins/admin/access';
+import type { Logger } from 'pino';
 import type { Db } from './db/client.ts';
 import * as schema from './db/schema/index.ts';
 
@@ -25,10 +26,19 @@ export interface AuthOptions {
   secret: string;
   trustedOrigins: string[];
   signInLimitPerMinute: number;
+  /** The library's own log lines go here (redacted like ours); without one it prints to the console. */
+  logger?: Logger;
 }
 
-export function createAuth({ db, baseURL, secret, trustedOrigins, signInLimitPerMinute }: AuthOptions) {
+export function createAuth({ db, baseURL, secret, trustedOrigins, signInLimitPerMinute, logger }: AuthOptions) {
   return betterAuth({
+    logger: logger && {
+      log: (level, message, ...args) => {
+        // Errors go through the logger's error serializer, which masks a failed query's values.
+        const err = args.find((a) => a instanceof Error);
+        logger[level]({ from: 'auth', ...(err ? { err } : {}) }, message);
+      },
+    },
     appName: 'Stackyard',
     baseURL,
     basePath: '/api/auth',

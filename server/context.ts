@@ -1,7 +1,7 @@
 import path from 'node:path';
-import { pino } from 'pino';
 import type { Env } from './env.ts';
 import { createDb } from './db/client.ts';
+import { createLogger } from './logger.ts';
 import { createAuth } from './auth.ts';
 import { createSearchClient } from './search/client.ts';
 import { localSecret } from './local-secret.ts';
@@ -10,7 +10,7 @@ import { createLocalFileStore } from './storage/files.ts';
 
 /** Everything createApp needs, built from the environment (server, CLI tasks and benchmarks share it). */
 export function buildContext(env: Env): AppOptions {
-  const logger = pino({ level: env.LOG_LEVEL });
+  const logger = createLogger(env.LOG_LEVEL);
   const publicUrl = env.PUBLIC_URL ?? `http://${env.HOST === '0.0.0.0' ? '127.0.0.1' : env.HOST}:${env.PORT}`;
   // Local addresses are trusted only for a local run; with PUBLIC_URL set, only that origin is.
   const trustedOrigins = env.PUBLIC_URL ? [env.PUBLIC_URL] : [...new Set([publicUrl, `http://localhost:${env.PORT}`, `http://127.0.0.1:${env.PORT}`])];
@@ -21,7 +21,19 @@ export function buildContext(env: Env): AppOptions {
     secret: env.AUTH_SECRET ?? localSecret(env.DATA_DIR),
     trustedOrigins,
     signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
+    logger,
   });
   const search = createSearchClient({ host: env.MEILI_HOST ?? 'http://127.0.0.1:7701', apiKey: env.MEILI_API_KEY });
-  return { trustProxy: env.TRUST_PROXY === undefined ? undefined : /^\d+$/.test(env.TRUST_PROXY) ? Number(env.TRUST_PROXY) : env.TRUST_PROXY, db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
+  return { trustProxy: trustProxySetting(env.TRUST_PROXY), db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
+}
+
+/**
+ * TRUST_PROXY as Express's "trust proxy": a hop count ("1"), "true"/"false", or addresses and
+ * names ("loopback", "10.0.0.0/8, 10.1.2.3"). Unset: no forwarded address is believed.
+ */
+export function trustProxySetting(value: string | undefined): string | number | boolean {
+  const v = value?.trim();
+  if (!v || v === 'false') return false;
+  if (v === 'true') return true;
+  return /^\d+$/.test(v) ? Number(v) : v;
 }

@@ -35,3 +35,23 @@ export class ConflictError extends AppError {
     super(409, 'conflict', message, details);
   }
 }
+
+/** The envelope code for an error known only by its HTTP status (the auth library's, Node's, Express's). */
+export function errorCodeForStatus(status: number): string {
+  const codes: Record<number, string> = {
+    400: 'bad_request',
+    401: 'unauthenticated',
+    403: 'forbidden',
+    404: 'not_found',
+    405: 'method_not_allowed',
+    408: 'request_timeout',
+    413: 'body_too_large',
+    414: 'uri_too_long',
+    415: 'unsupported_media_type',
+    422: 'validation_failed',
+    429: 'rate_limited',
+    431: 'headers_too_large',
+    503: 'unavailable',
+  };
+  return codes[status] ?? (status >= 500 ? 'internal' : 'bad_request');
+}

@@ -3,6 +3,7 @@ import { readEnv } from './env.ts';
 import { migrateDb } from './db/client.ts';
 import { buildContext } from './context.ts';
 import { createApp } from './app.ts';
+import { createHttpServer } from './http/server.ts';
 import { createPartsIndex } from './search/parts-index.ts';
 
 const env = readEnv();
@@ -36,20 +37,16 @@ if (cluster.isPrimary && env.WEB_CONCURRENCY > 1) {
     stopping = true;
     for (const w of Object.values(cluster.workers ?? {})) w?.kill('SIGTERM');
   };
-  process.on('SIGTERM', stopAll);
-  process.on('SIGINT', stopAll);
+  for (const signal of ['SIGTERM', 'SIGINT', 'SIGHUP'] as const) process.on(signal, stopAll);
 } else {
   serve();
 }
 
 function serve() {
   const app = createApp(context);
-  const server = app.listen(env.PORT, env.HOST, () => {
+  const server = createHttpServer(app).listen(env.PORT, env.HOST, () => {
     if (cluster.isPrimary || cluster.worker?.id === 1) context.logger.info(`Stackyard listening on ${context.trustedOrigins[0]}`);
   });
-  // Longer than a load balancer's idle timeout, so the balancer (not us) closes idle connections.
-  server.keepAliveTimeout = 65_000;
-  server.headersTimeout = 66_000;
   let stopped = false;
   const stop = () => {
     if (stopped) return;
@@ -59,6 +56,5 @@ function serve() {
     setTimeout(() => process.exit(0), 2_000).unref();
     server.closeIdleConnections();
   };
-  process.on('SIGTERM', stop);
-  process.on('SIGINT', stop);
+  for (const signal of ['SIGTERM', 'SIGINT', 'SIGHUP'] as const) process.on(signal, stop);
 }

@@ -155,9 +155,13 @@ export function spawnTs(entry, { env = {}, name, watch = false } = {}) {
   return spawnChild(process.execPath, args, { env, name: name ?? entry });
 }
 
-/** A child process that ends with us; if it stops on its own, so do we. */
+/** Preloaded into Node children so they stop when we are gone, however we went. */
+const DIE_WITH_PARENT = `--import=${new URL('./die-with-parent.mjs', import.meta.url).href}`;
+
+/** A child process that ends with us (even if we are killed outright); if it stops on its own, so do we. */
 export function spawnChild(cmd, args, { env = {}, name } = {}) {
-  const child = spawn(cmd, args, { cwd: root, env: { ...process.env, ...env }, stdio: 'inherit' });
+  const nodeOptions = [process.env.NODE_OPTIONS, env.NODE_OPTIONS, DIE_WITH_PARENT].filter(Boolean).join(' ');
+  const child = spawn(cmd, args, { cwd: root, env: { ...process.env, ...env, NODE_OPTIONS: nodeOptions }, stdio: 'inherit' });
   child.on('exit', (code, signal) => {
     if (!shuttingDown && code !== 0) fail(`${name ?? cmd} stopped unexpectedly (${signal ?? code}).`);
   });
@@ -167,19 +171,53 @@ export function spawnChild(cmd, args, { env = {}, name } = {}) {
 
 const children = [];
 let shuttingDown = false;
-/** On Ctrl-C / SIGTERM: stop the children we started, then whatever `cleanup` says. */
+/**
+ * Whatever ends us — Ctrl-C, SIGTERM, SIGHUP (the terminal closed), or our parent going away
+ * (npm killed, which does not always pass the signal on) — stop the children we started
+ * (SIGKILL for any still running after 10 s), then run `cleanup` (stopping PostgreSQL).
+ */
 export function onShutdown(cleanup) {
-  const shutdown = async () => {
+  const shutdown = async (why) => {
     if (shuttingDown) return;
     shuttingDown = true;
-    log('stopping…');
-    for (const child of children) child.kill('SIGTERM');
-    await Promise.all(children.map((c) => (c.exitCode === null ? new Promise((r) => c.once('exit', r)) : null)));
-    cleanup?.();
-    process.exit(0);
+    log(`stopping (${why})…`);
+    for (const child of children) if (child.exitCode === null && child.signalCode === null) child.kill('SIGTERM');
+    const force = setTimeout(() => {
+      for (const child of children) if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL');
+    }, 10_000);
+    await Promise.all(children.map((c) => (c.exitCode === null && c.signalCode === null ? new Promise((r) => c.once('exit', r)) : null)));
+    clearTimeout(force);
+    try {
+      cleanup?.();
+    } finally {
+      process.exit(0);
+    }
   };
-  process.on('SIGINT', shutdown);
-  process.on('SIGTERM', shutdown);
+  for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, () => void shutdown(signal));
+  const parent = process.ppid;
+  // Under npm the chain is npm → sh -c → us, and the shell may outlive npm: watch npm too.
+  const watched = [parent, ...(process.env.npm_lifecycle_event ? [parentOf(parent)].filter((p) => p > 1) : [])];
+  setInterval(() => {
+    let gone = process.ppid !== parent;
+    for (const pid of watched) {
+      try {
+        if (!gone) process.kill(pid, 0);
+      } catch {
+        gone = true;
+      }
+    }
+    if (gone) void shutdown('parent process gone');
+  }, 500).unref();
+}
+
+/** A process's parent id, from /proc (Linux); 0 when it cannot be read. */
+function parentOf(pid) {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    return Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]) || 0;
+  } catch {
+    return 0;
+  }
 }
 
 /** Newest modification time under the given paths (files or folders). */

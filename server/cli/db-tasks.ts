@@ -1,7 +1,7 @@
 // `npm run db:migrate | db:seed | db:reset | search:reindex` (through server/cli/db.mjs).
 import { sql } from 'drizzle-orm';
 import { readEnv } from '../env.ts';
-import { migrateDb } from '../db/client.ts';
+import { migrateDb, withSchemaLock } from '../db/client.ts';
 import { buildContext } from '../context.ts';
 import { seedDemo } from '../../seed/demo.ts';
 import { createServices } from '../app.ts';
@@ -25,7 +25,8 @@ for (const task of tasks) {
     await migrateDb(db);
     console.log('migrated');
   } else if (task === 'seed') {
-    const { seeded } = await seedDemo(db, auth);
+    // Instances starting together seed one after the other; the second finds the marker.
+    const { seeded } = await withSchemaLock(db, () => seedDemo(db, auth));
     console.log(seeded ? 'demo scenario seeded' : 'demo scenario already present');
   } else if (task === 'reindex') {
     console.log(`search index rebuilt with ${await partsIndex.rebuild(db)} parts`);

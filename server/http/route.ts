@@ -8,14 +8,22 @@ import type { Ability } from '@shared/roles.ts';
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
+/**
+ * Who may call a route, checked in the gate before anything is parsed (so a role that may not
+ * use a route hears 403, never a list of its field errors): an ability from shared/roles.ts,
+ * any signed-in user, or anyone at all. Required on every route; the service still calls
+ * authorize() itself.
+ */
+export type Access = Ability | 'signed-in' | 'public';
+
 export interface RouteDef<B extends ZodType, Q extends ZodType, P extends ZodType> {
   method: Method;
   /** Express path, e.g. /parts/:sku (relative to /api). */
   path: string;
   summary: string;
   tag: string;
-  /** Public routes skip the session check; everything else answers 401 without one. */
-  public?: boolean;
+  /** Required: who may call it (see Access). Anything but 'public' answers 401 without a session. */
+  ability: Access;
   body?: B;
   query?: Q;
   params?: P;
@@ -26,9 +34,8 @@ export interface RouteDef<B extends ZodType, Q extends ZodType, P extends ZodTyp
   produces?: string;
   /** The multipart form an upload route reads (files arrive through its middleware), for the OpenAPI document. */
   upload?: ZodType;
+  /** Runs after the gate, so nobody without the ability gets an upload buffered. */
   middleware?: RequestHandler[];
-  /** Checked before `middleware` runs, so nobody without it gets an upload buffered. */
-  ability?: Ability;
 }
 
 export interface RouteContext<B, Q, P> {
@@ -61,8 +68,9 @@ export class Api {
       if (!res.headersSent) (def.status ? res.status(def.status) : res).json(result);
     };
     const gate: RequestHandler = (req, _res, next) => {
-      if (!def.public && !req.actor) throw new UnauthenticatedError();
-      if (def.ability) authorize(req.actor!, def.ability);
+      if (def.ability === 'public') return next();
+      if (!req.actor) throw new UnauthenticatedError();
+      if (def.ability !== 'signed-in') authorize(req.actor, def.ability);
       next();
     };
     this.router[def.method](def.path, gate, ...(def.middleware ?? []), run);
@@ -79,14 +87,13 @@ export class Api {
         : { description: 'OK', content: def.response ? { 'application/json': { schema: def.response } } : undefined },
       400: errors('Invalid input'),
     };
-    if (!def.public) {
-      responses[401] = errors('Not signed in');
-      responses[403] = errors('Role not allowed');
-    }
+    if (def.ability !== 'public') responses[401] = errors('Not signed in');
+    if (def.ability !== 'public' && def.ability !== 'signed-in') responses[403] = errors('Role not allowed');
     this.registry.registerPath({
       method: def.method,
       path: `/api${def.path.replace(/:(\w+)/g, '{$1}')}`,
       summary: def.summary,
+      description: def.ability === 'public' ? 'Open to anyone.' : def.ability === 'signed-in' ? 'Any signed-in user.' : `Needs the ability \`${def.ability}\`.`,
       tags: [def.tag],
       request: {
         body: def.body

@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { AppError } from '../errors.ts';
+import { AppError, errorCodeForStatus } from '../errors.ts';
 
 /** The only place that writes error responses: `{ error: { code, message, details? }, requestId }`. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
@@ -25,7 +25,8 @@ function toAppError(err: unknown): AppError | null {
   if (e?.type === 'entity.too.large') return new AppError(413, 'body_too_large', 'The request body is too large.');
   if (e?.type === 'encoding.unsupported' || e?.type === 'charset.unsupported')
     return new AppError(415, 'unsupported_encoding', 'Send the body as UTF-8 JSON.');
-  if (e?.status && e.status >= 400 && e.status < 500) return new AppError(e.status, 'bad_request', 'The request could not be read.');
+  if (e?.status === 404) return new AppError(404, 'not_found', 'Nothing was found at this address.');
+  if (e?.status && e.status >= 400 && e.status < 500) return new AppError(e.status, errorCodeForStatus(e.status), 'The request could not be read.');
   if (searchUnreachable(err)) return new AppError(503, 'search_unavailable', 'Search is not reachable right now. Try again in a moment.');
   if (databaseDown(err) || (err as { body?: { code?: string } })?.body?.code === 'FAILED_TO_GET_SESSION')
     return new AppError(503, 'database_unavailable', 'The database is not reachable right now. Try again in a moment.');
@@ -55,4 +56,9 @@ function databaseDown(err: unknown) {
 
 export const apiNotFound: RequestHandler = (req, res) => {
   res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}.` }, requestId: req.id });
+};
+
+/** Anything outside /api that nothing served (no client build, or a method other than GET). */
+export const notFound: RequestHandler = (req, res) => {
+  res.status(404).json({ error: { code: 'not_found', message: `Nothing at ${req.method} ${req.path}.` }, requestId: req.id });
 };

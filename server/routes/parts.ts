@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from '@shared/contracts/text.ts';
 import multer from 'multer';
 import { MakerSchema, MediaSchema, PartDetailSchema, PartInputSchema, PartListQuerySchema, PartListResponseSchema, RangeSummarySchema } from '@shared/contracts/parts.ts';
 import { CATEGORY_LABELS } from '@shared/contracts/part-attributes.ts';
@@ -9,10 +10,10 @@ import { presentMedia, presentPartDetail, presentPartSummary } from '../presente
 import { DATASHEET_LIMIT } from '../services/media.ts';
 import { AppError } from '../errors.ts';
 
-const SkuParams = z.object({ sku: z.string().min(1).max(64) });
-const MediaParams = z.object({ id: z.string().uuid('Unknown file.') });
+const SkuParams = z.object({ sku: text().min(1).max(64) });
+const MediaParams = z.object({ id: text().uuid('Unknown file.') });
 /** The upload form: one file, its type decided by its content (OpenAPI "binary" string). */
-const MediaUploadForm = z.object({ file: z.string().meta({ format: 'binary', description: 'A JPEG, PNG or WebP photo, or a PDF datasheet' }) });
+const MediaUploadForm = z.object({ file: text().meta({ format: 'binary', description: 'A JPEG, PNG or WebP photo, or a PDF datasheet' }) });
 const detail = z.object({ data: PartDetailSchema });
 
 /** Multer errors (too big, too many files) as our 4xx envelope. */
@@ -26,12 +27,12 @@ const uploadOne: import('express').RequestHandler = (req, res, next) =>
   });
 
 export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
-  api.route({ method: 'get', path: '/parts', summary: 'Search and filter the catalogue', tag: 'catalogue', query: PartListQuerySchema, response: PartListResponseSchema }, async ({ actor, query }) => {
+  api.route({ method: 'get', path: '/parts', summary: 'Search and filter the catalogue', tag: 'catalogue', ability: 'catalogue.view', query: PartListQuerySchema, response: PartListResponseSchema }, async ({ actor, query }) => {
     const r = await catalogue.list(actor, query);
     return { data: r.hits.map(presentPartSummary), facets: r.facets, total: r.total, page: query.page, pageSize: query.pageSize, exactSku: r.exactSku };
   });
 
-  api.route({ method: 'get', path: '/parts/export.csv', summary: 'The filtered catalogue as CSV', tag: 'catalogue', query: PartListQuerySchema, produces: 'text/csv' }, async ({ actor, query, res }) => {
+  api.route({ method: 'get', path: '/parts/export.csv', summary: 'The filtered catalogue as CSV', tag: 'catalogue', ability: 'catalogue.view', query: PartListQuerySchema, produces: 'text/csv' }, async ({ actor, query, res }) => {
     const rows = await catalogue.exportRows(actor, query);
     sendCsv(
       res,
@@ -51,27 +52,27 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
     );
   });
 
-  api.route({ method: 'get', path: '/parts/lookup', summary: 'Find a part by scanned SKU, GTIN or supplier SKU', tag: 'catalogue', query: z.object({ code: z.string().trim().min(1).max(64) }), response: z.object({ data: z.object({ sku: z.string() }) }) }, async ({ actor, query }) => {
+  api.route({ method: 'get', path: '/parts/lookup', summary: 'Find a part by scanned SKU, GTIN or supplier SKU', tag: 'catalogue', ability: 'catalogue.view', query: z.object({ code: text().trim().min(1).max(64) }), response: z.object({ data: z.object({ sku: text() }) }) }, async ({ actor, query }) => {
     const { sku } = await catalogue.lookup(actor, query.code);
     return { data: { sku } };
   });
 
-  api.route({ method: 'get', path: '/parts/:sku', summary: 'One part with attributes, media and stock', tag: 'catalogue', params: SkuParams, response: detail }, async ({ actor, params }) => ({
+  api.route({ method: 'get', path: '/parts/:sku', summary: 'One part with attributes, media and stock', tag: 'catalogue', ability: 'catalogue.view', params: SkuParams, response: detail }, async ({ actor, params }) => ({
     data: presentPartDetail(actor, await catalogue.detail(actor, params.sku)),
   }));
 
-  api.route({ method: 'post', path: '/parts', summary: 'Create a part', tag: 'catalogue', body: PartInputSchema, response: detail, status: 201 }, async ({ actor, body }) => {
+  api.route({ method: 'post', path: '/parts', summary: 'Create a part', tag: 'catalogue', ability: 'catalogue.edit', body: PartInputSchema, response: detail, status: 201 }, async ({ actor, body }) => {
     const row = await catalogue.create(actor, body);
     return { data: presentPartDetail(actor, await catalogue.detail(actor, row.sku)) };
   });
 
-  api.route({ method: 'patch', path: '/parts/:sku', summary: 'Change a part (send the whole part)', tag: 'catalogue', params: SkuParams, body: PartInputSchema, response: detail }, async ({ actor, params, body }) => {
+  api.route({ method: 'patch', path: '/parts/:sku', summary: 'Change a part (send the whole part)', tag: 'catalogue', ability: 'catalogue.edit', params: SkuParams, body: PartInputSchema, response: detail }, async ({ actor, params, body }) => {
     const row = await catalogue.update(actor, params.sku, body);
     return { data: presentPartDetail(actor, await catalogue.detail(actor, row.sku)) };
   });
 
   for (const [verb, archived] of [['archive', true], ['restore', false]] as const) {
-    api.route({ method: 'post', path: `/parts/:sku/${verb}`, summary: archived ? 'Archive a part (hidden from search)' : 'Restore an archived part', tag: 'catalogue', params: SkuParams, response: detail }, async ({ actor, params }) => {
+    api.route({ method: 'post', path: `/parts/:sku/${verb}`, summary: archived ? 'Archive a part (hidden from search)' : 'Restore an archived part', tag: 'catalogue', ability: 'catalogue.edit', params: SkuParams, response: detail }, async ({ actor, params }) => {
       const row = await catalogue.setArchived(actor, params.sku, archived);
       return { data: presentPartDetail(actor, await catalogue.detail(actor, row.sku)) };
     });
@@ -83,14 +84,14 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
     return { data: presentMedia(row) };
   });
 
-  api.route({ method: 'delete', path: '/parts/:sku/media/:id', summary: 'Remove a photo or datasheet', tag: 'catalogue', params: SkuParams.extend(MediaParams.shape), status: 204 }, async ({ actor, params, res }) => {
+  api.route({ method: 'delete', path: '/parts/:sku/media/:id', summary: 'Remove a photo or datasheet', tag: 'catalogue', ability: 'catalogue.edit', params: SkuParams.extend(MediaParams.shape), status: 204 }, async ({ actor, params, res }) => {
     const partId = await media.remove(actor, params.sku, params.id);
     await catalogue.reindex(partId);
     res.status(204).end();
   });
 
   for (const variant of ['original', 'thumbnail'] as const) {
-    api.route({ method: 'get', path: variant === 'original' ? '/media/:id' : '/media/:id/thumbnail', summary: variant === 'original' ? 'A stored photo or datasheet' : 'A photo’s thumbnail', tag: 'catalogue', params: MediaParams, produces: 'application/octet-stream' }, async ({ actor, params, res }) => {
+    api.route({ method: 'get', path: variant === 'original' ? '/media/:id' : '/media/:id/thumbnail', summary: variant === 'original' ? 'A stored photo or datasheet' : 'A photo’s thumbnail', tag: 'catalogue', ability: 'catalogue.view', params: MediaParams, produces: 'application/octet-stream' }, async ({ actor, params, res }) => {
       const file = await media.read(actor, params.id, variant);
       res.setHeader('content-type', file.contentType);
       res.setHeader('cache-control', 'private, max-age=31536000, immutable');
@@ -101,11 +102,11 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
     });
   }
 
-  api.route({ method: 'get', path: '/makers', summary: 'Makers with their part counts', tag: 'catalogue', response: z.object({ data: z.array(MakerSchema) }) }, async ({ actor }) => ({
+  api.route({ method: 'get', path: '/makers', summary: 'Makers with their part counts', tag: 'catalogue', ability: 'catalogue.view', response: z.object({ data: z.array(MakerSchema) }) }, async ({ actor }) => ({
     data: await catalogue.makers(actor),
   }));
 
-  api.route({ method: 'get', path: '/ranges', summary: 'Stackable ranges', tag: 'catalogue', response: z.object({ data: z.array(RangeSummarySchema) }) }, async ({ actor }) => ({
+  api.route({ method: 'get', path: '/ranges', summary: 'Stackable ranges', tag: 'catalogue', ability: 'catalogue.view', response: z.object({ data: z.array(RangeSummarySchema) }) }, async ({ actor }) => ({
     data: await catalogue.ranges(actor),
   }));
 }

@@ -8,7 +8,7 @@ import { eq } from 'drizzle-orm';
 import { companies } from '../db/schema/index.ts';
 
 export function systemRoutes(api: Api, { db, search }: AppDeps) {
-  api.route({ method: 'get', path: '/health', summary: 'Database and search state', tag: 'system', public: true, response: HealthSchema }, async ({ res }) => {
+  api.route({ method: 'get', path: '/health', summary: 'Database and search state', tag: 'system', ability: 'public', response: HealthSchema }, async ({ res }) => {
     const [dbUp, searchUp] = await Promise.all([
       db.execute(sql`select 1`).then(() => true, () => false),
       search.healthy(),
@@ -18,7 +18,7 @@ export function systemRoutes(api: Api, { db, search }: AppDeps) {
     return health;
   });
 
-  api.route({ method: 'get', path: '/me', summary: 'The signed-in user, role, company and abilities', tag: 'system', response: z.object({ data: MeSchema }) }, async ({ actor }) => {
+  api.route({ method: 'get', path: '/me', summary: 'The signed-in user, role, company and abilities', tag: 'system', ability: 'signed-in', response: z.object({ data: MeSchema }) }, async ({ actor }) => {
     const [company] = actor.companyId
       ? await db.select({ id: companies.id, name: companies.name, kind: companies.kind }).from(companies).where(eq(companies.id, actor.companyId))
       : [];

@@ -1,30 +1,31 @@
 import { z } from 'zod';
+import { text } from './text.ts';
 import { ROLES } from '../roles.ts';
 
 export const ErrorEnvelopeSchema = z.object({
   error: z.object({
-    code: z.string(),
-    message: z.string(),
+    code: text(),
+    message: text(),
     details: z.unknown().optional(),
   }),
-  requestId: z.string(),
+  requestId: text(),
 });
 export type ErrorEnvelope = z.infer<typeof ErrorEnvelopeSchema>;
 
 export const RoleSchema = z.enum(ROLES);
 
 export const CompanySchema = z.object({
-  id: z.string(),
-  name: z.string(),
+  id: text(),
+  name: text(),
   kind: z.enum(['wholesaler', 'installer']),
 });
 export type Company = z.infer<typeof CompanySchema>;
 
 export const MeSchema = z.object({
-  user: z.object({ id: z.string(), name: z.string(), email: z.string() }),
+  user: z.object({ id: text(), name: text(), email: text() }),
   role: RoleSchema,
   company: CompanySchema.nullable(),
-  abilities: z.array(z.string()),
+  abilities: z.array(text()),
 });
 export type Me = z.infer<typeof MeSchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text.ts';
 
 /**
  * Typed, per-category part attributes.
@@ -69,9 +70,8 @@ const int = (label: string, min: number, max: number) =>
     .int(`${label} must be a whole number.`)
     .min(min, `${label} must be at least ${min}.`)
     .max(max, `${label} must be at most ${max}.`);
-const text = (label: string, max = 80) =>
-  z
-    .string({ error: `${label} must be text.` })
+const words = (label: string, max = 80) =>
+  text({ error: `${label} must be text.` })
     .trim()
     .min(1, `${label} cannot be empty.`)
     .max(max, `${label} must be at most ${max} characters.`);
@@ -242,20 +242,20 @@ export const WallBracketAttributesSchema = z.strictObject({
 
 export const EndCapAttributesSchema = z.strictObject({
   category: z.literal('end-cap'),
-  connectorType: text('Connector type').optional(),
+  connectorType: words('Connector type').optional(),
 });
 
 export const CableSetAttributesSchema = z.strictObject({
   category: z.literal('cable-set'),
   lengthM: positive('Length', 100, 'm'),
   crossSectionMm2: positive('Cross-section', 400, 'mm²'),
-  connector: text('Connector').optional(),
+  connector: words('Connector').optional(),
 });
 
 export const CableCoverAttributesSchema = z.strictObject({
   category: z.literal('cable-cover'),
   lengthM: positive('Length', 100, 'm').optional(),
-  material: text('Material').optional(),
+  material: words('Material').optional(),
 });
 
 export const EarthLeadAttributesSchema = z.strictObject({
@@ -271,7 +271,7 @@ export const CommsTerminatorAttributesSchema = z.strictObject({
 
 export const AccessoryAttributesSchema = z.strictObject({
   category: z.literal('accessory'),
-  purpose: text('Purpose', 200).optional(),
+  purpose: words('Purpose', 200).optional(),
 });
 
 export const PartAttributesSchema = z.discriminatedUnion('category', [
@@ -299,12 +299,12 @@ export const IP_RATING_RE = /^IP[0-6X][0-9X]$/;
 
 export const ComplianceSchema = z.strictObject({
   standardsTestedTo: z
-    .array(text('Standard', 60))
+    .array(words('Standard', 60))
     .max(30, 'List at most 30 standards.')
     .refine((l) => new Set(l).size === l.length, 'List each standard once.'),
-  certificationListing: text('Certification listing', 120).optional(),
+  certificationListing: words('Certification listing', 120).optional(),
   certificationDate: z.iso.date('Certification date must be a date (YYYY-MM-DD).').optional(),
-  enclosureIp: z.string().regex(IP_RATING_RE, 'Enclosure rating looks like IP55 (two digits or X).').optional(),
+  enclosureIp: text().regex(IP_RATING_RE, 'Enclosure rating looks like IP55 (two digits or X).').optional(),
   touchSafeConnectors: bool('Touch-safe connectors').optional(),
 });
 export type Compliance = z.infer<typeof ComplianceSchema>;

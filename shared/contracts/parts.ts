@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text.ts';
 import { isValidGtin } from '../domain/gtin.ts';
 import { CategoryCodeSchema, ComplianceSchema, IP_RATING_RE, PartAttributesSchema } from './part-attributes.ts';
 
@@ -10,14 +11,12 @@ export const LIFECYCLE_LABELS: Record<Lifecycle, string> = { active: 'Active', s
 export const UNITS = ['each', 'pack', 'set', 'm'] as const;
 
 export const SKU_RE = /^[A-Z0-9][A-Z0-9._/-]{1,39}$/;
-export const SkuSchema = z
-  .string()
+export const SkuSchema = text()
   .trim()
   .transform((s) => s.toUpperCase())
-  .pipe(z.string().regex(SKU_RE, 'A SKU is 2–40 capital letters, digits, dots, dashes or slashes.'));
+  .pipe(text().regex(SKU_RE, 'A SKU is 2–40 capital letters, digits, dots, dashes or slashes.'));
 
-export const GtinSchema = z
-  .string()
+export const GtinSchema = text()
   .trim()
   .regex(/^(\d{8}|\d{12}|\d{13}|\d{14})$/, 'A GTIN has 8, 12, 13 or 14 digits.')
   .refine(isValidGtin, 'That GTIN’s check digit is wrong: check the number on the label.');
@@ -34,9 +33,9 @@ const mm = (label: string) => z.number().int(`${label} is whole millimetres.`).m
 export const PartInputSchema = z
   .strictObject({
     sku: SkuSchema,
-    name: z.string().trim().min(2, 'Give the part a name.').max(160),
-    makerCode: z.string().trim().min(1, 'Choose a maker.').max(16),
-    description: z.string().trim().max(4000).default(''),
+    name: text().trim().min(2, 'Give the part a name.').max(160),
+    makerCode: text().trim().min(1, 'Choose a maker.').max(16),
+    description: text().trim().max(4000).default(''),
     gtin: GtinSchema.nullable().optional(),
     unit: z.enum(UNITS).default('each'),
     packSize: z.number().int('Pack size is a whole number.').min(1, 'Pack size is at least 1.').max(10_000, 'Pack size must be at most 10,000.'),
@@ -44,7 +43,7 @@ export const PartInputSchema = z
     widthMm: mm('Width').nullable().optional(),
     heightMm: mm('Height').nullable().optional(),
     depthMm: mm('Depth').nullable().optional(),
-    ipRating: z.string().regex(IP_RATING_RE, 'An IP rating looks like IP55 or IPX4.').nullable().optional(),
+    ipRating: text().regex(IP_RATING_RE, 'An IP rating looks like IP55 or IPX4.').nullable().optional(),
     lifecycle: LifecycleSchema.default('active'),
     supersededBySku: SkuSchema.nullable().optional(),
     dangerousGoods: DangerousGoodsSchema.nullable().optional(),
@@ -52,7 +51,7 @@ export const PartInputSchema = z
     listPriceCents: z.number().int('List price is whole cents.').min(0, 'List price cannot be negative.').max(100_000_000).nullable().optional(),
     attributes: PartAttributesSchema,
     compliance: ComplianceSchema.nullable().optional(),
-    supplierSkus: z.array(z.strictObject({ supplier: z.string().min(1).max(16), sku: z.string().trim().min(1).max(64) })).max(20).default([]),
+    supplierSkus: z.array(z.strictObject({ supplier: text().min(1).max(16), sku: text().trim().min(1).max(64) })).max(20).default([]),
   })
   .superRefine((p, ctx) => {
     if (p.lifecycle === 'superseded' && !p.supersededBySku)
@@ -67,10 +66,10 @@ export type PartInputParsed = z.output<typeof PartInputSchema>;
 
 
 export const PartListQuerySchema = z.object({
-  q: z.string().trim().max(200).default(''),
+  q: text().trim().max(200).default(''),
   category: CategoryCodeSchema.optional(),
-  maker: z.string().trim().max(16).optional(),
-  range: z.string().trim().max(32).optional(),
+  maker: text().trim().max(16).optional(),
+  range: text().trim().max(32).optional(),
   lifecycle: LifecycleSchema.optional(),
   inStock: z.enum(['true', 'false']).optional(),
   sort: z.enum(['relevance', 'sku', 'name', 'category', 'maker']).default('relevance'),
@@ -81,29 +80,29 @@ export const PartListQuerySchema = z.object({
 export type PartListQuery = z.infer<typeof PartListQuerySchema>;
 
 export const PartSummarySchema = z.object({
-  sku: z.string(),
-  name: z.string(),
+  sku: text(),
+  name: text(),
   category: CategoryCodeSchema,
-  maker: z.string(),
-  makerName: z.string(),
-  gtin: z.string().nullable(),
+  maker: text(),
+  makerName: text(),
+  gtin: text().nullable(),
   lifecycle: LifecycleSchema,
-  ranges: z.array(z.string()),
+  ranges: z.array(text()),
   packSize: z.number(),
-  unit: z.string(),
+  unit: text(),
   listPriceCents: z.number().nullable(),
   available: z.number(),
   inStock: z.boolean(),
-  thumbnailUrl: z.string().nullable(),
+  thumbnailUrl: text().nullable(),
 });
 export type PartSummary = z.infer<typeof PartSummarySchema>;
 
 export const FacetsSchema = z.object({
-  category: z.record(z.string(), z.number()),
-  maker: z.record(z.string(), z.number()),
-  range: z.record(z.string(), z.number()),
-  lifecycle: z.record(z.string(), z.number()),
-  inStock: z.record(z.string(), z.number()),
+  category: z.record(text(), z.number()),
+  maker: z.record(text(), z.number()),
+  range: z.record(text(), z.number()),
+  lifecycle: z.record(text(), z.number()),
+  inStock: z.record(text(), z.number()),
 });
 export type Facets = z.infer<typeof FacetsSchema>;
 
@@ -114,67 +113,67 @@ export const PartListResponseSchema = z.object({
   page: z.number(),
   pageSize: z.number(),
   /** Set when q is exactly a SKU, GTIN or supplier SKU (a scan): the client jumps to it. */
-  exactSku: z.string().nullable(),
+  exactSku: text().nullable(),
 });
 export type PartListResponse = z.infer<typeof PartListResponseSchema>;
 
 export const MediaSchema = z.object({
-  id: z.string(),
+  id: text(),
   kind: z.enum(['image', 'datasheet']),
-  contentType: z.string(),
-  fileName: z.string(),
+  contentType: text(),
+  fileName: text(),
   bytes: z.number(),
-  url: z.string(),
-  thumbnailUrl: z.string().nullable(),
+  url: text(),
+  thumbnailUrl: text().nullable(),
 });
 export type Media = z.infer<typeof MediaSchema>;
 
 export const StockByWarehouseSchema = z.object({
-  warehouse: z.string(),
-  warehouseName: z.string(),
+  warehouse: text(),
+  warehouseName: text(),
   available: z.number(),
   onHand: z.number().optional(),
   reserved: z.number().optional(),
 });
 
 export const PartDetailSchema = PartSummarySchema.extend({
-  id: z.string(),
-  description: z.string(),
+  id: text(),
+  description: text(),
   widthMm: z.number().nullable(),
   heightMm: z.number().nullable(),
   depthMm: z.number().nullable(),
   massKg: z.number(),
-  ipRating: z.string().nullable(),
-  supersededBy: z.object({ sku: z.string(), name: z.string() }).nullable(),
-  supersedes: z.array(z.object({ sku: z.string(), name: z.string() })),
+  ipRating: text().nullable(),
+  supersededBy: z.object({ sku: text(), name: text() }).nullable(),
+  supersedes: z.array(z.object({ sku: text(), name: text() })),
   dangerousGoods: DangerousGoodsSchema.nullable(),
-  attributes: z.record(z.string(), z.unknown()),
-  compliance: z.record(z.string(), z.unknown()).nullable(),
-  supplierSkus: z.array(z.object({ supplier: z.string(), sku: z.string() })).optional(),
+  attributes: z.record(text(), z.unknown()),
+  compliance: z.record(text(), z.unknown()).nullable(),
+  supplierSkus: z.array(z.object({ supplier: text(), sku: text() })).optional(),
   /** Only for roles that may see costs. */
   costCents: z.number().nullable().optional(),
   media: z.array(MediaSchema),
   stock: z.array(StockByWarehouseSchema),
   archived: z.boolean(),
-  updatedAt: z.string(),
+  updatedAt: text(),
   abilities: z.object({ edit: z.boolean(), viewCost: z.boolean() }),
 });
 export type PartDetail = z.infer<typeof PartDetailSchema>;
 
-export const MakerSchema = z.object({ code: z.string(), name: z.string(), country: z.string().nullable(), parts: z.number() });
+export const MakerSchema = z.object({ code: text(), name: text(), country: text().nullable(), parts: z.number() });
 export type Maker = z.infer<typeof MakerSchema>;
 
 export const RangeSummarySchema = z.object({
-  id: z.string(),
-  code: z.string(),
-  name: z.string(),
-  maker: z.string(),
-  makerName: z.string(),
+  id: text(),
+  code: text(),
+  name: text(),
+  maker: text(),
+  makerName: text(),
   connection: z.enum(['series', 'parallel']),
   minModules: z.number(),
   maxModules: z.number(),
   maxStacks: z.number(),
-  controllerSku: z.string(),
-  moduleSku: z.string(),
+  controllerSku: text(),
+  moduleSku: text(),
 });
 export type RangeSummary = z.infer<typeof RangeSummarySchema>;

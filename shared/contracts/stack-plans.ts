@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text.ts';
 import { BomRulesSchema } from '../domain/bom-rules.ts';
 import { COUNTRIES, FLOORS, LOCATIONS, SiteInputSchema, WALLS } from '../domain/site.ts';
 import { CategoryCodeSchema } from './part-attributes.ts';
@@ -6,10 +7,10 @@ import { RangeSummarySchema } from './parts.ts';
 
 export const StackPlanRequestSchema = z
   .strictObject({
-    rangeId: z.string().trim().min(1, 'Choose a range.').max(64),
+    rangeId: text().trim().min(1, 'Choose a range.').max(64),
     modules: z.number().int('Modules are whole units.').min(1, 'A stack has at least 1 module.').max(64, 'At most 64 modules per stack.').optional(),
     targetUsableKwh: z.number().positive('The target usable energy must be above 0 kWh.').max(2000, 'Targets above 2,000 kWh are not home systems.').optional(),
-    inverterSku: z.string().trim().min(1).max(64).nullable().optional(),
+    inverterSku: text().trim().min(1).max(64).nullable().optional(),
     stacks: z.number().int().min(1, 'At least 1 stack.').max(16, 'At most 16 stacks.').optional(),
     /** The site; anything left out is assumed, and the answer says what. */
     site: SiteInputSchema.optional(),
@@ -30,18 +31,18 @@ export const StackPlanRequestSchema = z
   });
 export type StackPlanRequest = z.infer<typeof StackPlanRequestSchema>;
 
-export const CautionSchema = z.object({ code: z.string(), text: z.string(), source: z.string() });
+export const CautionSchema = z.object({ code: text(), text: text(), source: text() });
 
 export const PlanBomLineSchema = z.object({
-  sku: z.string(),
-  name: z.string(),
-  category: z.string(),
+  sku: text(),
+  name: text(),
+  category: text(),
   qtyNeeded: z.number(),
   qtyUnits: z.number(),
   packSize: z.number(),
   packs: z.number(),
-  reason: z.string(),
-  rules: z.array(z.string()),
+  reason: text(),
+  rules: z.array(text()),
   /** The range's rules (numbered from 1) behind the line; empty for the stack's units and the inverter. */
   ruleNumbers: z.array(z.number()),
   /** Metres the line provides (cables, covers, conduit). */
@@ -50,15 +51,15 @@ export const PlanBomLineSchema = z.object({
   unitPriceCents: z.number().nullable(),
   lineTotalCents: z.number().nullable(),
   available: z.number(),
-  availability: z.array(z.object({ warehouse: z.string(), available: z.number() })),
+  availability: z.array(z.object({ warehouse: text(), available: z.number() })),
   short: z.number(),
 });
 export type PlanBomLine = z.infer<typeof PlanBomLineSchema>;
 
 export const StackPlanSchema = z.object({
-  rangeId: z.string(),
-  rangeName: z.string(),
-  inverterSku: z.string().nullable(),
+  rangeId: text(),
+  rangeName: text(),
+  inverterSku: text().nullable(),
   stacks: z.number(),
   modulesPerStack: z.number(),
   cellUnitsPerStack: z.number(),
@@ -70,25 +71,25 @@ export const StackPlanSchema = z.object({
   minVoltage: z.number(),
   capacityAh: z.number(),
   dvc: z.enum(['A', 'B', 'C']),
-  inverterFit: z.object({ fits: z.boolean(), reason: z.string().optional(), code: z.string().optional(), warnings: z.array(z.string()).optional() }).nullable(),
+  inverterFit: z.object({ fits: z.boolean(), reason: text().optional(), code: text().optional(), warnings: z.array(text()).optional() }).nullable(),
   heightMm: z.number(),
   massKg: z.number(),
   footprintM2: z.number(),
   floorLoadKpa: z.number(),
   footLoadKn: z.number(),
   throughputMwh: z.number().nullable(),
-  throughputAssumptions: z.array(z.string()),
+  throughputAssumptions: z.array(text()),
   warrantedThroughputMwh: z.number().nullable(),
-  warrantedThroughputNote: z.string().nullable(),
+  warrantedThroughputNote: text().nullable(),
   equivalentCycles: z.number().nullable(),
   yearsAtOneCyclePerDay: z.number().nullable(),
   roundTripEfficiencyPct: z.number().nullable(),
   chargeEfficiencyPct: z.number().nullable(),
   dischargeEfficiencyPct: z.number().nullable(),
-  assumptions: z.array(z.string()),
+  assumptions: z.array(text()),
   cautions: z.array(CautionSchema),
   bom: z.array(PlanBomLineSchema),
-  units: z.array(z.object({ kind: z.enum(['controller', 'module', 'feet']), sku: z.string().nullable(), name: z.string(), heightMm: z.number(), carriesCells: z.boolean() })),
+  units: z.array(z.object({ kind: z.enum(['controller', 'module', 'feet']), sku: text().nullable(), name: text(), heightMm: z.number(), carriesCells: z.boolean() })),
   /** The widest unit, for drawing the stack to scale. */
   unitWidthMm: z.number(),
   /** The site planned for, defaults filled in. */
@@ -101,68 +102,68 @@ export const StackPlanSchema = z.object({
     country: z.enum(COUNTRIES),
   }),
   /** Site facts assumed because the request left them out. */
-  siteAssumed: z.array(z.string()),
+  siteAssumed: z.array(text()),
   totals: z.object({ gstMethod: z.enum(['per-line', 'per-invoice']), subtotalCents: z.number(), gstCents: z.number(), totalCents: z.number(), unpricedLines: z.number() }),
 });
 export type StackPlanResult = z.infer<typeof StackPlanSchema>;
 
 export const SavePlanSchema = z.strictObject({
-  name: z.string().trim().min(1, 'Name the plan (a site or customer reference).').max(120),
-  siteSuburb: z.string().trim().max(80).optional(),
-  sitePostcode: z.string().trim().regex(/^\d{4}$/, 'An Australian postcode has 4 digits.').optional(),
+  name: text().trim().min(1, 'Name the plan (a site or customer reference).').max(120),
+  siteSuburb: text().trim().max(80).optional(),
+  sitePostcode: text().trim().regex(/^\d{4}$/, 'An Australian postcode has 4 digits.').optional(),
   /** Staff plan for a customer account; installers always plan for their own company. */
-  companyId: z.string().uuid().optional(),
+  companyId: text().uuid().optional(),
   request: StackPlanRequestSchema,
 });
 export type SavePlanInput = z.infer<typeof SavePlanSchema>;
 
 export const SavedPlanSchema = z.object({
-  id: z.string(),
-  name: z.string(),
+  id: text(),
+  name: text(),
   status: z.enum(['draft']),
-  companyId: z.string(),
-  companyName: z.string(),
-  siteSuburb: z.string().nullable(),
-  sitePostcode: z.string().nullable(),
-  request: z.record(z.string(), z.unknown()),
-  rangeName: z.string(),
+  companyId: text(),
+  companyName: text(),
+  siteSuburb: text().nullable(),
+  sitePostcode: text().nullable(),
+  request: z.record(text(), z.unknown()),
+  rangeName: text(),
   usableKwh: z.number(),
   modulesPerStack: z.number(),
   stacks: z.number(),
-  createdBy: z.string(),
-  createdAt: z.string(),
+  createdBy: text(),
+  createdAt: text(),
 });
 export type SavedPlan = z.infer<typeof SavedPlanSchema>;
 
 /** What the range editor sends. Rules are data, validated by the shared schema. */
 export const RangeInputSchema = z
   .strictObject({
-    name: z.string().trim().min(2).max(120),
+    name: text().trim().min(2).max(120),
     connection: z.enum(['series', 'parallel']),
-    controllerSku: z.string().trim().min(1).max(64),
-    moduleSku: z.string().trim().min(1).max(64),
+    controllerSku: text().trim().min(1).max(64),
+    moduleSku: text().trim().min(1).max(64),
     minModules: z.number().int().min(1).max(64),
     maxModules: z.number().int().min(1).max(64),
     maxStacks: z.number().int().min(1).max(16),
     baseHeightMm: z.number().int().min(0).max(1000),
     defaultDodPct: z.number().min(10).max(100).nullable(),
-    inverterSkus: z.array(z.string().trim().min(1).max(64)).max(50),
+    inverterSkus: z.array(text().trim().min(1).max(64)).max(50),
     rules: BomRulesSchema,
   })
   .refine((r) => r.maxModules >= r.minModules, { path: ['maxModules'], message: 'The maximum must be at least the minimum.' });
 export type RangeInput = z.input<typeof RangeInputSchema>;
 
 export const InverterOptionSchema = z.object({
-  sku: z.string(),
-  name: z.string(),
-  makerName: z.string(),
+  sku: text(),
+  name: text(),
+  makerName: text(),
   batteryMinV: z.number(),
   batteryMaxV: z.number(),
   batteryInputs: z.number(),
   parallelStacks: z.number().nullable(),
   maxBatteryKwh: z.number().nullable(),
-  lifecycle: z.string(),
-  supersededBy: z.string().nullable(),
+  lifecycle: text(),
+  supersededBy: text().nullable(),
   listPriceCents: z.number().nullable(),
 });
 
@@ -170,16 +171,16 @@ export const InverterOptionSchema = z.object({
 export const RangeDetailSchema = RangeSummarySchema.extend({
   baseHeightMm: z.number(),
   defaultDodPct: z.number().nullable(),
-  inverterSkus: z.array(z.string()),
+  inverterSkus: z.array(text()),
   rules: BomRulesSchema,
   planner: z.object({
-    range: z.record(z.string(), z.unknown()),
+    range: z.record(text(), z.unknown()),
     parts: z.record(
-      z.string(),
+      text(),
       z.object({
-        sku: z.string(),
-        name: z.string(),
-        category: CategoryCodeSchema.or(z.string()),
+        sku: text(),
+        name: text(),
+        category: CategoryCodeSchema.or(text()),
         packSize: z.number(),
         massKg: z.number().nullable().optional(),
         lengthM: z.number().nullable().optional(),

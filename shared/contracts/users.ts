@@ -1,30 +1,31 @@
 import { z } from 'zod';
+import { text } from './text.ts';
 import { RoleSchema } from './common.ts';
 
 export const UserRowSchema = z.object({
-  id: z.string(),
-  name: z.string(),
-  email: z.string(),
+  id: text(),
+  name: text(),
+  email: text(),
   role: RoleSchema,
-  companyId: z.string().nullable(),
-  companyName: z.string().nullable(),
+  companyId: text().nullable(),
+  companyName: text().nullable(),
   active: z.boolean(),
-  createdAt: z.string(),
+  createdAt: text(),
 });
 export type UserRow = z.infer<typeof UserRowSchema>;
 
 export const UserListQuerySchema = z.object({
-  q: z.string().trim().max(100).optional(),
+  q: text().trim().max(100).optional(),
 });
 
-const password = z.string().min(10, 'Use at least 10 characters.').max(128, 'Use at most 128 characters.');
+const password = text().min(10, 'Use at least 10 characters.').max(128, 'Use at most 128 characters.');
 
 export const CreateUserSchema = z
   .object({
-    name: z.string().trim().min(1, 'Enter a name.').max(100),
-    email: z.email('Enter a valid e-mail address.').max(200).transform((e) => e.toLowerCase()),
+    name: text().trim().min(1, 'Enter a name.').max(100),
+    email: text().trim().max(200).pipe(z.email('Enter a valid e-mail address.')).transform((e) => e.toLowerCase()),
     role: RoleSchema,
-    companyId: z.string().uuid('Choose a company.').nullable().optional(),
+    companyId: text().uuid('Choose a company.').nullable().optional(),
     password,
   })
   .refine((u) => u.role !== 'installer' || !!u.companyId, {
@@ -35,9 +36,9 @@ export type CreateUserInput = z.infer<typeof CreateUserSchema>;
 
 export const UpdateUserSchema = z
   .object({
-    name: z.string().trim().min(1).max(100).optional(),
+    name: text().trim().min(1).max(100).optional(),
     role: RoleSchema.optional(),
-    companyId: z.string().uuid().nullable().optional(),
+    companyId: text().uuid().nullable().optional(),
     active: z.boolean().optional(),
   })
   .refine((u) => Object.keys(u).length > 0, { message: 'Nothing to change.' });
@@ -47,7 +48,7 @@ export const ResetPasswordSchema = z.object({ password });
 export type ResetPasswordInput = z.infer<typeof ResetPasswordSchema>;
 
 export const CompanyOptionSchema = z.object({
-  id: z.string(),
-  name: z.string(),
+  id: text(),
+  name: text(),
   kind: z.enum(['wholesaler', 'installer']),
 });

@@ -1,6 +1,7 @@
 // BOM rules are data stored on a range, not formulas: a small closed vocabulary of bases and
 // conditions that a product manager can edit and the planner can explain line by line.
 import { z } from 'zod';
+import { text } from '../contracts/text.ts';
 import { DVC_A_MAX_V, type Dvc } from './energy.ts';
 import { COUNTRIES, COUNTRY_LABELS, DEFAULT_SITE, FLOORS, FLOOR_LABELS, LOCATIONS, LOCATION_LABELS, MAX_CABLE_RUN_M, WALLS, WALL_LABELS, type Site } from './site.ts';
 
@@ -29,7 +30,7 @@ export type BomCondition = z.infer<typeof BomConditionSchema>;
 
 export const BomRuleSchema = z
   .object({
-    sku: z.string().min(1).max(64),
+    sku: text().min(1).max(64),
     basis: z.enum(BOM_BASES),
     qty: z.number().int().positive().max(1000),
     divisor: z.number().int().positive().max(100).optional(),

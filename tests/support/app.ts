@@ -1,6 +1,7 @@
 // A real app for a test file: its own cloned database, its own search stand-in, the real auth.
 import path from 'node:path';
-import { pino } from 'pino';
+import type { Logger } from 'pino';
+import { createLogger } from '../../server/logger.ts';
 import supertest from 'supertest';
 import type { Express } from 'express';
 import { createApp, createServices, type AppDeps } from '../../server/app.ts';
@@ -33,12 +34,13 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string } = {}): Promise<TestApp> {
-  const { db, url, drop } = await createTestDb();
+export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string; logger?: Logger; trustProxy?: string | number | boolean; connectVia?: (url: string) => string } = {}): Promise<TestApp> {
+  const { db, url, drop } = await createTestDb(options.connectVia);
   const standin = await startSearchStandin({ port: 0 });
   const baseURL = options.baseURL ?? TEST_ORIGIN;
   const trustedOrigins = [baseURL];
-  const auth = createAuth({ db, baseURL, secret: 'test-secret-test-secret-test-secret-0123', trustedOrigins, signInLimitPerMinute: options.signInLimitPerMinute ?? 1000 });
+  const logger = options.logger ?? createLogger(process.env.TEST_LOG_LEVEL ?? 'silent');
+  const auth = createAuth({ db, baseURL, secret: 'test-secret-test-secret-test-secret-0123', trustedOrigins, signInLimitPerMinute: options.signInLimitPerMinute ?? 1000, logger });
   const search = createSearchClient({ host: standin.url });
   let searchStopped = false;
   const filesDir = mkdtempSync(path.join(os.tmpdir(), 'stackyard-files-'));
@@ -47,7 +49,8 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
     auth,
     search,
     files: createLocalFileStore(filesDir),
-    logger: pino({ level: process.env.TEST_LOG_LEVEL ?? 'silent' }),
+    logger,
+    trustProxy: options.trustProxy,
     trustedOrigins,
     clientDir: options.clientDir ? path.resolve(options.clientDir) : undefined,
   };

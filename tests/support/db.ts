@@ -21,11 +21,11 @@ async function admin<T>(fn: (c: pg.Client) => Promise<T>) {
 }
 
 /** A fresh database cloned from the migrated template: real PostgreSQL, private to the caller. */
-export async function createTestDb(): Promise<{ db: Db; url: string; drop(): Promise<void> }> {
+export async function createTestDb(connectVia?: (url: string) => string): Promise<{ db: Db; url: string; drop(): Promise<void> }> {
   const name = `t_${process.pid}_${randomBytes(4).toString('hex')}`;
   await admin((c) => c.query(`create database "${name}" template "${TEMPLATE_DB}"`));
   const url = adminUrl().replace(/\/[^/]*$/, `/${name}`);
-  const db = createDb(url, { max: 10 });
+  const db = createDb(connectVia ? connectVia(url) : url, { max: 10 });
   return {
     db,
     url,

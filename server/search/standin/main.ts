@@ -17,3 +17,4 @@ const shutdown = () =>
   );
 process.once('SIGTERM', shutdown);
 process.once('SIGINT', shutdown);
+process.once('SIGHUP', shutdown);

@@ -7,11 +7,11 @@ export interface SignInInput {
   password: string;
 }
 
-/** Plain-language messages for what the auth library answers. */
+/** Plain-language messages for what the auth routes answer (our error envelope, its code lower-cased). */
 function explain(status: number, code?: string) {
   if (status === 429) return 'Too many sign-in attempts. Wait a minute and try again.';
-  if (code === 'BANNED_USER' || status === 403) return 'This account is deactivated. Ask your administrator to reactivate it.';
-  if (status === 401 || code === 'INVALID_EMAIL_OR_PASSWORD') return 'That e-mail and password do not match. Check both and try again.';
+  if (code === 'banned_user' || status === 403) return 'This account is deactivated. Ask your administrator to reactivate it.';
+  if (status === 401 || code === 'invalid_email_or_password') return 'That e-mail and password do not match. Check both and try again.';
   return 'Sign-in failed. Try again in a moment.';
 }
 
@@ -20,7 +20,7 @@ export function useSignIn() {
   return useMutation({
     mutationFn: async ({ email, password }: SignInInput) => {
       const { error } = await authClient.signIn.email({ email, password });
-      if (error) throw new Error(explain(error.status, error.code));
+      if (error) throw new Error(explain(error.status, (error as { error?: { code?: string } }).error?.code));
     },
     onSuccess: () => qc.invalidateQueries({ queryKey: authKeys.me }),
   });

@@ -1,0 +1,99 @@
+// Who may call each API operation: the one table tests/api/access-matrix.test.ts checks every
+// operation of /api/openapi.json against, for anonymous callers, every role and an installer of
+// another company. Adding a route? Add its line here (the matrix test fails naming it until you do).
+import type { Role } from '../../shared/roles.ts';
+
+/** Ids the matrix test creates before calling anything (see `fixtures` in access-matrix.test.ts). */
+export type FixtureKey =
+  | 'sku' // an active demo part
+  | 'archiveSku' // a demo part the archive/restore and edit routes may change
+  | 'media' // a photo on `sku`
+  | 'mediaToDelete' // a photo the delete route may remove
+  | 'plan' // a plan saved by an installer of company A (the "own" company)
+  | 'range' // a demo range
+  | 'user' // a user the admin routes may change
+  | 'customer'; // company A (the installer's own), for staff saving plans for a customer
+export type Fixtures = Record<FixtureKey, string>;
+
+export interface OperationAccess {
+  /** 'public': anyone; 'signed-in': any role; otherwise exactly these roles (others get 403). */
+  allow: 'public' | 'signed-in' | readonly Role[];
+  /**
+   * The object in the path belongs to a company: an installer of another company gets 404
+   * (installer of the owning company and staff are allowed as usual).
+   */
+  companyOwned?: boolean;
+  /** Which fixture fills each path parameter. */
+  params?: Record<string, FixtureKey>;
+  /** A valid query / body for allowed callers; without one, writes are sent `{}` (allowed → 400). */
+  query?: (f: Fixtures) => Record<string, string>;
+  body?: (f: Fixtures) => unknown;
+}
+
+const everyone: readonly Role[] = ['admin', 'purchasing', 'warehouse', 'sales', 'installer'];
+const staff: readonly Role[] = ['admin', 'purchasing', 'warehouse', 'sales'];
+const editors: readonly Role[] = ['admin', 'purchasing'];
+const planners: readonly Role[] = ['admin', 'purchasing', 'sales', 'installer'];
+const admins: readonly Role[] = ['admin'];
+
+const plan = (f: Fixtures) => ({ rangeId: f.range, modules: 3 });
+
+/** Keys are "METHOD /api/path/{param}" exactly as in the OpenAPI document. */
+export const ACCESS_TABLE: Record<string, OperationAccess> = {
+  // system
+  'GET /api/health': { allow: 'public' },
+  'GET /api/me': { allow: 'signed-in' },
+
+  // users (admin only)
+  'GET /api/admin/users': { allow: admins },
+  'POST /api/admin/users': { allow: admins },
+  'PATCH /api/admin/users/{id}': { allow: admins, params: { id: 'user' } },
+  'POST /api/admin/users/{id}/password': { allow: admins, params: { id: 'user' } },
+  'GET /api/admin/companies': { allow: admins },
+
+  // catalogue
+  'GET /api/parts': { allow: everyone },
+  'GET /api/parts/export.csv': { allow: everyone },
+  'GET /api/parts/lookup': { allow: everyone, query: (f) => ({ code: f.sku }) },
+  'GET /api/parts/{sku}': { allow: everyone, params: { sku: 'sku' } },
+  'POST /api/parts': { allow: editors },
+  'PATCH /api/parts/{sku}': { allow: editors, params: { sku: 'archiveSku' } },
+  'POST /api/parts/{sku}/archive': { allow: editors, params: { sku: 'archiveSku' } },
+  'POST /api/parts/{sku}/restore': { allow: editors, params: { sku: 'archiveSku' } },
+  'POST /api/parts/{sku}/media': { allow: editors, params: { sku: 'sku' } },
+  'DELETE /api/parts/{sku}/media/{id}': { allow: editors, params: { sku: 'sku', id: 'mediaToDelete' } },
+  'GET /api/media/{id}': { allow: everyone, params: { id: 'media' } },
+  'GET /api/media/{id}/thumbnail': { allow: everyone, params: { id: 'media' } },
+  'GET /api/makers': { allow: everyone },
+  'GET /api/ranges': { allow: everyone },
+
+  // planner
+  'POST /api/stack-plans': { allow: planners, body: plan },
+  'POST /api/stack-plans/bom.csv': { allow: planners, body: plan },
+  'POST /api/stack-plans/plan.pdf': { allow: planners, body: plan },
+  'POST /api/stack-plans/saved': { allow: planners, body: (f) => ({ name: 'Matrix check', companyId: f.customer, request: plan(f) }) },
+  'GET /api/stack-plans/saved': { allow: planners },
+  'GET /api/stack-plans/saved/{id}': { allow: planners, companyOwned: true, params: { id: 'plan' } },
+  'GET /api/stack-plans/saved/{id}/bom.csv': { allow: planners, companyOwned: true, params: { id: 'plan' } },
+  'GET /api/stack-plans/saved/{id}/plan.pdf': { allow: planners, companyOwned: true, params: { id: 'plan' } },
+  'GET /api/ranges/{id}': { allow: everyone, params: { id: 'range' } },
+  'PUT /api/ranges/{id}': { allow: editors, params: { id: 'range' } },
+  'GET /api/customers': { allow: staff },
+  'GET /api/inverters': { allow: everyone },
+};
+
+export type Caller = 'anonymous' | Role | 'other-installer';
+export const CALLERS: readonly Caller[] = ['anonymous', ...everyone, 'other-installer'];
+
+/** What a caller must get: a status, or "allowed" (past the gate: not 401/403/404-by-company, below 500). */
+export type Expected = { status: 401 | 403 | 404 } | { allowed: true; success: boolean };
+
+export function expectedFor(entry: OperationAccess, caller: Caller, method: string): Expected {
+  const success = method === 'GET' || entry.body !== undefined;
+  if (entry.allow === 'public') return { allowed: true, success };
+  if (caller === 'anonymous') return { status: 401 };
+  const role: Role = caller === 'other-installer' ? 'installer' : caller;
+  if (entry.allow !== 'signed-in' && !entry.allow.includes(role)) return { status: 403 };
+  if (caller === 'other-installer' && entry.companyOwned) return { status: 404 };
+  return { allowed: true, success };
+}

@@ -1,0 +1,62 @@
+// The demo scenario plus one of every object the API's path parameters name, and a signed-in
+// agent for every caller: shared by the generated access matrix and the hostile-input properties.
+import sharp from 'sharp';
+import supertest from 'supertest';
+import { sql } from 'drizzle-orm';
+import { seedDemo } from '../../seed/demo.ts';
+import { makeUser } from '../../seed/factories.ts';
+import { ROLES } from '../../shared/roles.ts';
+import type { TestApp } from './app.ts';
+import type { Caller, Fixtures } from './access-table.ts';
+
+export type Agents = Record<Caller, supertest.Agent>;
+
+export interface OpenApiOperation {
+  method: string;
+  /** As in the document: /api/parts/{sku} */
+  path: string;
+  key: string;
+  operation: {
+    parameters?: { name: string; in: 'path' | 'query' | 'header'; required?: boolean; schema?: JsonSchema }[];
+    requestBody?: { content: Record<string, { schema?: JsonSchema }> };
+  };
+}
+export type JsonSchema = Record<string, unknown>;
+
+/** Every operation of /api/openapi.json, as "METHOD /path". */
+export async function openApiOperations(t: TestApp): Promise<OpenApiOperation[]> {
+  const doc = (await supertest(t.app).get('/api/openapi.json').expect(200)).body as { paths: Record<string, Record<string, OpenApiOperation['operation']>> };
+  return Object.entries(doc.paths).flatMap(([path, ops]) =>
+    Object.entries(ops).map(([method, operation]) => ({ method: method.toUpperCase(), path, key: `${method.toUpperCase()} ${path}`, operation })),
+  );
+}
+
+const png = () => sharp({ create: { width: 32, height: 24, channels: 3, background: '#3d6f8e' } }).png().toBuffer();
+
+export async function arrangeFixtures(t: TestApp): Promise<{ fixtures: Fixtures; agents: Agents }> {
+  await seedDemo(t.db, t.auth, t.services.partsIndex);
+  const agents = { anonymous: supertest.agent(t.app) } as Agents;
+  for (const role of ROLES) agents[role] = await t.signIn(role);
+  agents['other-installer'] = await t.signIn('installer');
+
+  const { rows: partRows } = await t.db.execute<{ sku: string }>(sql`select sku from parts where archived_at is null and lifecycle = 'active' order by sku limit 2`);
+  const { rows: rangeRows } = await t.db.execute<{ id: string }>(sql`select id from ranges order by code limit 1`);
+  const [sku, archiveSku] = partRows.map((r) => r.sku) as [string, string];
+  const range = rangeRows[0]!.id;
+
+  const upload = async () => (await agents.admin.post(`/api/parts/${sku}/media`).attach('file', await png(), 'photo.png').expect(201)).body.data.id as string;
+  const media = await upload();
+  const mediaToDelete = await upload();
+  const saved = await agents.installer.post('/api/stack-plans/saved').send({ name: 'Own company plan', request: { rangeId: range, modules: 3 } }).expect(201);
+  const user = await makeUser(t.db, t.auth, { role: 'sales' });
+  return { fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId }, agents };
+}
+
+/** The path with each {param} filled (already encoded by the caller when it wants raw bytes). */
+export function fillPath(path: string, values: Record<string, string>): string {
+  return path.replace(/\{(\w+)\}/g, (_m, name: string) => {
+    const v = values[name];
+    if (v === undefined) throw new Error(`no value for path parameter {${name}} of ${path}`);
+    return v;
+  });
+}
