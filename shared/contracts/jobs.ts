@@ -1,0 +1,107 @@
+import { z } from 'zod';
+import { PageQuerySchema } from './common.ts';
+import { UnitsSchema } from './stock.ts';
+
+export const JOB_STATUSES = ['draft', 'ordered', 'reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected', 'closed', 'cancelled'] as const;
+export type JobStatus = (typeof JOB_STATUSES)[number];
+
+export const JOB_STATUS_LABELS: Record<JobStatus, string> = {
+  draft: 'Draft',
+  ordered: 'Ordered',
+  reserved: 'Reserved',
+  'part-reserved': 'Part reserved',
+  picking: 'Picking',
+  ready: 'Ready',
+  dispatched: 'Dispatched',
+  collected: 'Collected',
+  closed: 'Closed',
+  cancelled: 'Cancelled',
+};
+
+export const CreateJobSchema = z.strictObject({
+  companyId: z.uuid('Choose a customer account.').optional(),
+  reference: z.string({ error: 'Give the job a reference.' }).trim().min(1, 'Give the job a reference.').max(40, 'Keep the reference to 40 characters.'),
+  siteSuburb: z.string().trim().max(80).optional(),
+  sitePostcode: z.string().trim().regex(/^\d{4}$/, 'An Australian postcode has 4 digits.').optional(),
+  contact: z.string().trim().max(120).optional(),
+  notes: z.string().trim().max(2000).optional(),
+  preferredWarehouse: z.string().trim().toUpperCase().max(32).optional(),
+  planIds: z.array(z.uuid('Choose saved plans.')).max(20).optional(),
+  lines: z.array(z.strictObject({ sku: z.string().trim().min(1, 'Give a SKU.').max(64).toUpperCase(), qty: UnitsSchema })).max(200).optional(),
+});
+export type CreateJobInput = z.infer<typeof CreateJobSchema>;
+
+export const JobListQuerySchema = z.object({
+  status: z.enum(JOB_STATUSES).optional(),
+  companyId: z.uuid().optional(),
+  q: z.string().trim().max(80).optional(),
+  from: z.iso.date().optional(),
+  to: z.iso.date().optional(),
+  page: PageQuerySchema.shape.page,
+  pageSize: PageQuerySchema.shape.pageSize,
+});
+export type JobListQuery = z.infer<typeof JobListQuerySchema>;
+
+const CompanyRefSchema = z.object({ id: z.string(), name: z.string() });
+
+export const JobLineSchema = z.object({
+  id: z.string(),
+  lineNo: z.number(),
+  sku: z.string(),
+  name: z.string(),
+  qty: z.number(),
+  reserved: z.number(),
+  backordered: z.number(),
+  /** Available now across all warehouses (never on hand), and what that leaves short of what is still needed. */
+  available: z.number(),
+  short: z.number(),
+  plan: z.object({ id: z.string(), name: z.string() }).nullable(),
+  reason: z.string().nullable(),
+  unitPriceCents: z.number().nullable(),
+  lineTotalCents: z.number().nullable(),
+});
+export type JobLine = z.infer<typeof JobLineSchema>;
+
+export const JobSchema = z.object({
+  id: z.string(),
+  reference: z.string(),
+  status: z.enum(JOB_STATUSES),
+  company: CompanyRefSchema,
+  siteSuburb: z.string().nullable(),
+  sitePostcode: z.string().nullable(),
+  contact: z.string().nullable(),
+  notes: z.string().nullable(),
+  preferredWarehouse: z.object({ code: z.string(), name: z.string() }).nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  orderedAt: z.string().nullable(),
+  /** When the quote hold on a draft's units lapses (null when nothing is held on a quote). */
+  holdExpiresAt: z.string().nullable(),
+  plans: z.array(z.object({ id: z.string(), name: z.string(), rangeName: z.string(), usableKwh: z.number().nullable(), stacks: z.number().nullable(), modulesPerStack: z.number().nullable() })),
+  lines: z.array(JobLineSchema),
+  reservations: z.array(z.object({ sku: z.string(), warehouse: z.string(), bin: z.string(), qty: z.number(), needsTransfer: z.boolean(), expiresAt: z.string().nullable() })),
+  backorders: z.array(z.object({ sku: z.string(), qty: z.number(), since: z.string(), position: z.number(), waiting: z.number() })),
+  history: z.array(z.object({ status: z.enum(JOB_STATUSES), at: z.string(), by: z.string().nullable(), note: z.string().nullable() })),
+  totals: z.object({ subtotalCents: z.number(), gstCents: z.number(), totalCents: z.number(), unpricedLines: z.number() }),
+  /** What the signed-in user may do with this job now. */
+  abilities: z.object({ order: z.boolean(), reserve: z.boolean(), release: z.boolean(), cancel: z.boolean() }),
+});
+export type Job = z.infer<typeof JobSchema>;
+
+export const JobSummarySchema = z.object({
+  id: z.string(),
+  reference: z.string(),
+  status: z.enum(JOB_STATUSES),
+  company: CompanyRefSchema,
+  siteSuburb: z.string().nullable(),
+  sitePostcode: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  lines: z.number(),
+  units: z.number(),
+  reserved: z.number(),
+  backordered: z.number(),
+});
+export type JobSummary = z.infer<typeof JobSummarySchema>;
+
+export const JobListSchema = z.object({ data: z.array(JobSummarySchema), total: z.number() });
