@@ -80,7 +80,7 @@ export const JobSchema = z.object({
   plans: z.array(z.object({ id: z.string(), name: z.string(), rangeName: z.string(), usableKwh: z.number().nullable(), stacks: z.number().nullable(), modulesPerStack: z.number().nullable() })),
   lines: z.array(JobLineSchema),
   reservations: z.array(z.object({ sku: z.string(), warehouse: z.string(), bin: z.string(), qty: z.number(), needsTransfer: z.boolean(), expiresAt: z.string().nullable() })),
-  backorders: z.array(z.object({ sku: z.string(), qty: z.number(), since: z.string(), position: z.number(), waiting: z.number() })),
+  backorders: z.array(z.object({ sku: z.string(), qty: z.number(), since: z.string(), position: z.number(), unitsAhead: z.number() })),
   history: z.array(z.object({ status: z.enum(JOB_STATUSES), at: z.string(), by: z.string().nullable(), note: z.string().nullable() })),
   totals: z.object({ subtotalCents: z.number(), gstCents: z.number(), totalCents: z.number(), unpricedLines: z.number() }),
   /** What the signed-in user may do with this job now. */
