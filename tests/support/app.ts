@@ -33,7 +33,7 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string } = {}): Promise<TestApp> {
+export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string; now?: () => Date } = {}): Promise<TestApp> {
   const { db, url, drop } = await createTestDb();
   const standin = await startSearchStandin({ port: 0 });
   const baseURL = options.baseURL ?? TEST_ORIGIN;
@@ -50,6 +50,7 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
     logger: pino({ level: process.env.TEST_LOG_LEVEL ?? 'silent' }),
     trustedOrigins,
     clientDir: options.clientDir ? path.resolve(options.clientDir) : undefined,
+    now: options.now,
   };
   const app = createApp(appOptions);
   const services = createServices(appOptions);
