@@ -86,9 +86,9 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
           planName: stackPlans.name,
           reason: jobLines.reason,
           unitPriceCents: jobLines.unitPriceCents,
-          reserved: sql<number>`coalesce((select sum(r.qty) from reservations r where r.job_line_id = ${jobLines.id}), 0)::int`,
-          backordered: sql<number>`coalesce((select b.qty from backorders b where b.job_line_id = ${jobLines.id}), 0)::int`,
-          available: sql<number>`coalesce((select sum(l.on_hand - l.reserved) from stock_levels l where l.part_id = ${jobLines.partId}), 0)::int`,
+          reserved: sql<number>`coalesce((select sum(r.qty) from reservations r where r.job_line_id = "job_lines"."id"), 0)::int`,
+          backordered: sql<number>`coalesce((select b.qty from backorders b where b.job_line_id = "job_lines"."id"), 0)::int`,
+          available: sql<number>`coalesce((select sum(l.on_hand - l.reserved) from stock_levels l where l.part_id = "job_lines"."part_id"), 0)::int`,
         })
         .from(jobLines)
         .innerJoin(parts, eq(parts.id, jobLines.partId))
@@ -214,10 +214,10 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
             sitePostcode: jobs.sitePostcode,
             createdAt: jobs.createdAt,
             updatedAt: jobs.updatedAt,
-            lines: sql<number>`(select count(*) from job_lines jl where jl.job_id = ${jobs.id})::int`,
-            units: sql<number>`(select coalesce(sum(jl.qty), 0) from job_lines jl where jl.job_id = ${jobs.id})::int`,
-            reserved: sql<number>`(select coalesce(sum(r.qty), 0) from reservations r join job_lines jl on jl.id = r.job_line_id where jl.job_id = ${jobs.id})::int`,
-            backordered: sql<number>`(select coalesce(sum(b.qty), 0) from backorders b join job_lines jl on jl.id = b.job_line_id where jl.job_id = ${jobs.id})::int`,
+            lines: sql<number>`(select count(*) from job_lines jl where jl.job_id = "jobs"."id")::int`,
+            units: sql<number>`(select coalesce(sum(jl.qty), 0) from job_lines jl where jl.job_id = "jobs"."id")::int`,
+            reserved: sql<number>`(select coalesce(sum(r.qty), 0) from reservations r join job_lines jl on jl.id = r.job_line_id where jl.job_id = "jobs"."id")::int`,
+            backordered: sql<number>`(select coalesce(sum(b.qty), 0) from backorders b join job_lines jl on jl.id = b.job_line_id where jl.job_id = "jobs"."id")::int`,
           })
           .from(jobs)
           .innerJoin(companies, eq(companies.id, jobs.companyId))
@@ -267,7 +267,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const job = await visibleJob(actor, id);
       if (!BEFORE_PICKING.includes(job.status)) throw new ConflictError(`This job is ${job.status}; its stock can no longer be released here.`);
       await inStockTransaction(db, async (tx) => {
-        const units = await releaseJobHolds(tx, id);
+        const { units } = await releaseJobHolds(tx, id, { now: now() });
         const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
         if (!BEFORE_PICKING.includes(locked!.status)) throw new ConflictError(`This job is ${locked!.status}; its stock can no longer be released here.`);
         if (locked!.status === 'reserved' || locked!.status === 'part-reserved') await record(tx, id, 'ordered', actor.userId, `Released ${units} reserved units`);
@@ -281,7 +281,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const job = await visibleJob(actor, id);
       if (!BEFORE_PICKING.includes(job.status)) throw new ConflictError(`This job is ${job.status} and can no longer be cancelled.`);
       await inStockTransaction(db, async (tx) => {
-        const units = await releaseJobHolds(tx, id);
+        const { units } = await releaseJobHolds(tx, id, { now: now() });
         const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
         if (!BEFORE_PICKING.includes(locked!.status)) throw new ConflictError(`This job is ${locked!.status} and can no longer be cancelled.`);
         await record(tx, id, 'cancelled', actor.userId, units ? `Released ${units} reserved units` : null);
@@ -299,7 +299,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       let units = 0;
       for (const { jobId } of due) {
         units += await inStockTransaction(db, async (tx) => {
-          const released = await releaseJobHolds(tx, jobId, { onlyExpiredBy: at });
+          const { units: released } = await releaseJobHolds(tx, jobId, { onlyExpiredBy: at, now: at });
           const [locked] = await tx.select().from(jobs).where(eq(jobs.id, jobId)).for('update');
           if (released > 0) await tx.insert(jobStatusHistory).values({ jobId, status: locked!.status, userId: null, note: `Quote hold lapsed: ${released} units released`, at });
           return released;

@@ -1,10 +1,13 @@
 // The stock ledger's building blocks, used inside a caller's transaction.
 //
 // Lock order, everywhere stock changes (so two transactions can never wait on each other in a circle):
+//   0. the parts rows, ordered by id (FOR NO KEY UPDATE: catalogue foreign keys still pass)
 //   1. stock_levels rows, ordered by (part_id, warehouse_id, bin)
 //   2. backorders, ordered by (created_at, id)  — a job's own backorders by id
 //   3. jobs, ordered by id
-// Reservations are only written while their level row is locked, so they need no lock of their own.
+// The part lock makes everything that changes one part's stock take turns. Without it a receipt
+// into a new bin and a reservation of the same part could each miss the other's uncommitted row
+// (units left free while a backorder waits). Reservations are only written under these locks.
 import { randomBytes } from 'node:crypto';
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db, DbOrTx, Tx } from '../db/client.ts';
@@ -66,6 +69,7 @@ export async function inStockTransaction<T>(db: Db, fn: (tx: Tx) => Promise<T>, 
 export async function lockLevels(tx: Tx, keys: LevelKey[]): Promise<Map<string, LockedLevel>> {
   const unique = [...new Map(keys.map((k) => [keyOf(k), k])).values()].sort(compareKeys);
   if (unique.length === 0) return new Map();
+  await lockParts(tx, unique.map((k) => k.partId));
   await tx.execute(sql`
     insert into stock_levels (part_id, warehouse_id, bin)
     select * from unnest(${`{${unique.map((k) => k.partId).join(',')}}`}::uuid[], ${`{${unique.map((k) => k.warehouseId).join(',')}}`}::uuid[], ${toPgArray(unique.map((k) => k.bin))}::text[])
@@ -83,12 +87,18 @@ export async function lockLevels(tx: Tx, keys: LevelKey[]): Promise<Map<string, 
 /** Locks every level row of these parts, in the global order. */
 export async function lockPartLevels(tx: Tx, partIds: string[]): Promise<LockedLevel[]> {
   if (partIds.length === 0) return [];
+  await lockParts(tx, partIds);
   const rows = await tx.execute<{ part_id: string; warehouse_id: string; bin: string; on_hand: number; reserved: number }>(sql`
     select part_id, warehouse_id, bin, on_hand, reserved from stock_levels
     where part_id = any(${`{${[...new Set(partIds)].join(',')}}`}::uuid[])
     order by part_id, warehouse_id, bin collate "C"
     for update`);
   return rows.rows.map((r) => ({ partId: r.part_id, warehouseId: r.warehouse_id, bin: r.bin, onHand: r.on_hand, reserved: r.reserved }));
+}
+
+/** Step 0 of the lock order; the statements after it see every row committed before it was granted. */
+async function lockParts(tx: Tx, partIds: string[]) {
+  await tx.execute(sql`select id from parts where id = any(${`{${[...new Set(partIds)].join(',')}}`}::uuid[]) order by id for no key update`);
 }
 
 function toPgArray(values: string[]) {
@@ -201,7 +211,7 @@ export async function fillBackorders(tx: Tx, arrivals: LockedLevel[], now: Date)
 /** Units held per line of a job, and whether every line is fully held. */
 export async function heldByLine(tx: DbOrTx, jobId: string) {
   const rows = await tx
-    .select({ lineId: jobLines.id, qty: jobLines.qty, held: sql<number>`coalesce((select sum(r.qty) from reservations r where r.job_line_id = ${jobLines.id}), 0)::int` })
+    .select({ lineId: jobLines.id, qty: jobLines.qty, held: sql<number>`coalesce((select sum(r.qty) from reservations r where r.job_line_id = "job_lines"."id"), 0)::int` })
     .from(jobLines)
     .where(eq(jobLines.jobId, jobId));
   return { rows, full: rows.length > 0 && rows.every((r) => r.held >= r.qty) };
@@ -220,20 +230,30 @@ export async function settleStatus(tx: Tx, jobId: string, userId: string | null,
   return status;
 }
 
-/** Releases every unit a job holds (optionally only lapsed quote holds) and drops its backorders. */
-export async function releaseJobHolds(tx: Tx, jobId: string, { onlyExpiredBy }: { onlyExpiredBy?: Date } = {}) {
+/**
+ * Releases every unit a job holds (or only lapsed quote holds) and drops its backorders; the
+ * freed units go to other jobs' waiting backorders at once, oldest first. Locks every level
+ * row of the job's parts first, as reserving does, so the two queue behind each other.
+ */
+export async function releaseJobHolds(tx: Tx, jobId: string, { onlyExpiredBy, now }: { onlyExpiredBy?: Date; now: Date }) {
+  const lineParts = await tx.selectDistinct({ partId: jobLines.partId }).from(jobLines).where(eq(jobLines.jobId, jobId));
+  const levels = await lockPartLevels(tx, lineParts.map((l) => l.partId));
+  await tx.execute(sql`select id from backorders where job_line_id in (select id from job_lines where job_id = ${jobId}) order by id for update`);
   const held = await tx
     .select({ id: reservations.id, partId: reservations.partId, warehouseId: reservations.warehouseId, bin: reservations.bin, qty: reservations.qty, expiresAt: reservations.expiresAt })
     .from(reservations)
     .innerJoin(jobLines, eq(jobLines.id, reservations.jobLineId))
     .where(eq(jobLines.jobId, jobId));
   const toRelease = onlyExpiredBy ? held.filter((r) => r.expiresAt && r.expiresAt <= onlyExpiredBy) : held;
-  await lockLevels(tx, toRelease);
-  await tx.execute(sql`select id from backorders where job_line_id in (select id from job_lines where job_id = ${jobId}) order by id for update`);
+  const byKey = new Map(levels.map((l) => [keyOf(l), l]));
   for (const r of toRelease) {
     await changeReserved(tx, r, -r.qty);
     await tx.delete(reservations).where(eq(reservations.id, r.id));
+    const level = byKey.get(keyOf(r));
+    if (level) level.reserved -= r.qty;
   }
   if (!onlyExpiredBy) await tx.delete(backorders).where(inArray(backorders.jobLineId, tx.select({ id: jobLines.id }).from(jobLines).where(eq(jobLines.jobId, jobId))));
-  return toRelease.reduce((s, r) => s + r.qty, 0);
+  const freed = new Set(toRelease.map((r) => keyOf(r)));
+  const given = await fillBackorders(tx, levels.filter((l) => freed.has(keyOf(l))), now);
+  return { units: toRelease.reduce((s, r) => s + r.qty, 0), given };
 }

@@ -26,11 +26,10 @@ export async function reserveInTx(tx: Tx, jobId: string, opts: { userId: string 
   if (!job) throw new NotFoundError('That job');
   if (!opts.firmUpOnly) assertReservable(job.status);
 
-  const [whRows, binRows, defaults] = await Promise.all([
-    tx.select({ id: warehouses.id, rank: warehouses.rank, code: warehouses.code }).from(warehouses),
-    tx.select({ warehouseId: bins.warehouseId, code: bins.code, pickOrder: bins.pickOrder }).from(bins),
-    partIds.length ? tx.select().from(defaultBins).where(inArray(defaultBins.partId, partIds)) : [],
-  ]);
+  // One connection: its queries go one after another.
+  const whRows = await tx.select({ id: warehouses.id, rank: warehouses.rank, code: warehouses.code }).from(warehouses);
+  const binRows = await tx.select({ warehouseId: bins.warehouseId, code: bins.code, pickOrder: bins.pickOrder }).from(bins);
+  const defaults = partIds.length ? await tx.select().from(defaultBins).where(inArray(defaultBins.partId, partIds)) : [];
   const preferred = job.preferredWarehouseId ?? [...whRows].sort((a, b) => a.rank - b.rank || a.code.localeCompare(b.code))[0]?.id ?? null;
   const whOrder = new Map(whRows.map((w) => [w.id, w.id === preferred ? -1 : w.rank]));
   const pickOrder = new Map(binRows.map((b) => [`${b.warehouseId}|${b.code}`, b.pickOrder]));

@@ -62,18 +62,22 @@ export const JobLineSchema = z.object({
 });
 export type JobLine = z.infer<typeof JobLineSchema>;
 
-export const JobSchema = z.object({
+/** What a job's list row and its page both show. */
+const JobHeadSchema = z.object({
   id: z.string(),
   reference: z.string(),
   status: z.enum(JOB_STATUSES),
   company: CompanyRefSchema,
   siteSuburb: z.string().nullable(),
   sitePostcode: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+
+export const JobSchema = JobHeadSchema.extend({
   contact: z.string().nullable(),
   notes: z.string().nullable(),
   preferredWarehouse: z.object({ code: z.string(), name: z.string() }).nullable(),
-  createdAt: z.string(),
-  updatedAt: z.string(),
   orderedAt: z.string().nullable(),
   /** When the quote hold on a draft's units lapses (null when nothing is held on a quote). */
   holdExpiresAt: z.string().nullable(),
@@ -88,15 +92,7 @@ export const JobSchema = z.object({
 });
 export type Job = z.infer<typeof JobSchema>;
 
-export const JobSummarySchema = z.object({
-  id: z.string(),
-  reference: z.string(),
-  status: z.enum(JOB_STATUSES),
-  company: CompanyRefSchema,
-  siteSuburb: z.string().nullable(),
-  sitePostcode: z.string().nullable(),
-  createdAt: z.string(),
-  updatedAt: z.string(),
+export const JobSummarySchema = JobHeadSchema.extend({
   lines: z.number(),
   units: z.number(),
   reserved: z.number(),

@@ -17,7 +17,8 @@ beforeAll(async () => {
   t = await createTestApp();
   main = await makeWarehouse(t.db, { code: 'MAIN', rank: 1 });
   north = await makeWarehouse(t.db, { code: 'NTH', rank: 2 });
-  [warehouse, sales, installer, admin] = await Promise.all([t.signIn('warehouse'), t.signIn('sales'), t.signIn('installer'), t.signIn('admin')]);
+  warehouse = await t.signIn('warehouse'); // first: it makes the wholesaler company
+  [sales, installer, admin] = await Promise.all([t.signIn('sales'), t.signIn('installer'), t.signIn('admin')]);
 });
 afterAll(() => t.close());
 // The ledger explains every unit after every test.
