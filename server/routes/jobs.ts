@@ -3,6 +3,8 @@ import { CreateJobSchema, JobListQuerySchema, JobListSchema, JobSchema } from '@
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../app.ts';
 import { presentJob, presentJobSummary } from '../presenters/jobs.ts';
+import { sendCsv } from '../http/csv.ts';
+import { JOB_STATUS_LABELS } from '@shared/contracts/jobs.ts';
 
 const IdParams = z.object({ id: z.string().min(1).max(64) });
 const JobResponse = z.object({ data: JobSchema });
@@ -15,6 +17,26 @@ export function jobRoutes(api: Api, { jobs }: Pick<AppDeps, 'jobs'>) {
   api.route({ method: 'get', path: '/jobs', summary: 'Jobs, filtered by status, company, reference and date (installers: their own company only)', tag: 'jobs', ability: 'jobs.view', query: JobListQuerySchema, response: JobListSchema }, async ({ actor, query }) => {
     const { rows, total } = await jobs.list(actor, query);
     return { data: rows.map(presentJobSummary), total };
+  });
+
+  api.route({ method: 'get', path: '/jobs.csv', summary: 'The job list as CSV, same filters (up to 5,000 rows)', tag: 'jobs', ability: 'jobs.view', query: JobListQuerySchema.omit({ page: true, pageSize: true }), produces: 'text/csv' }, async ({ actor, query, res }) => {
+    const { rows } = await jobs.list(actor, { ...query, page: 1, pageSize: 5000 });
+    sendCsv(
+      res,
+      rows.map(presentJobSummary).map((j) => ({
+        Reference: j.reference,
+        Status: JOB_STATUS_LABELS[j.status],
+        Customer: j.company.name,
+        Suburb: j.siteSuburb ?? '',
+        Postcode: j.sitePostcode ?? '',
+        Lines: j.lines,
+        Units: j.units,
+        Reserved: j.reserved,
+        Backordered: j.backordered,
+        Created: j.createdAt.slice(0, 10),
+      })),
+      `jobs-${new Date().toISOString().slice(0, 10)}`,
+    );
   });
 
   api.route({ method: 'get', path: '/jobs/:id', summary: 'A job with its lines, reservations, backorders and history', tag: 'jobs', ability: 'jobs.view', params: IdParams, response: JobResponse }, async ({ actor, params }) => ({

@@ -153,6 +153,17 @@ describe('company isolation', () => {
     expect(res.body.data[0]).toMatchObject({ status: 'draft', company: { id: c.id }, lines: 1, units: 1 });
     expect((await sales.get('/api/jobs?status=nonsense')).status).toBe(400);
   });
+
+  it('exports the list as CSV with spreadsheet formulas neutralised', async () => {
+    const p = await stocked([[main, 'A-7', 5]]);
+    await installer.post('/api/jobs').send({ reference: '=HYPERLINK("http://x.test")', lines: [{ sku: p.sku, qty: 1 }] }).expect(201);
+    const res = await installer.get('/api/jobs.csv?q=HYPERLINK');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/csv/);
+    // OWASP "CSV Injection": a leading apostrophe stops the spreadsheet running it
+    expect(res.text).toContain(`"'=HYPERLINK(""http://x.test"")"`);
+    expect((await installer2.get('/api/jobs.csv?q=HYPERLINK')).text).not.toContain('HYPERLINK');
+  });
 });
 
 describe('reserving', () => {

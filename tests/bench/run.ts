@@ -17,9 +17,10 @@ import { parseSettings } from '../../server/search/standin-settings.ts';
 import { catalogueSearches } from '../../server/services/catalogue.ts';
 import { PartListQuerySchema } from '../../shared/contracts/parts.ts';
 import { BENCH_PARTS, generateBenchCatalogue } from './generate.ts';
+import { benchReservations, generateBenchJobs } from './reservations.ts';
 
-const API_PORT = 3390;
-const SEARCH_PORT = 7790;
+const API_PORT = Number(process.env.BENCH_API_PORT ?? 3390);
+const SEARCH_PORT = Number(process.env.BENCH_SEARCH_PORT ?? 7790);
 const base = `http://127.0.0.1:${API_PORT}`;
 const results: Record<string, unknown> = { machine: { node: process.version, cpus: (await import('node:os')).cpus().length }, at: new Date().toISOString() };
 
@@ -94,6 +95,7 @@ console.log('generating the benchmark catalogue (first run only)…');
 const t0 = performance.now();
 const generated = await generateBenchCatalogue(context.db);
 if (generated) console.log(`  generated in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+if (await generateBenchJobs(context.db)) console.log('  and 10,000 jobs');
 
 // --- services -----------------------------------------------------------------------------
 const search = child('server/search/standin-main.ts', { SEARCH_PORT: String(SEARCH_PORT) });
@@ -233,6 +235,8 @@ try {
     target: '≤ 400 MB per server process with the big catalogue indexed',
     met: perWorker <= 400,
   };
+  // --- reservations ----------------------------------------------------------------------------
+  results.reservations = await benchReservations(env.DATABASE_URL);
 } finally {
   await clients.close();
   api.kill('SIGTERM');
@@ -256,5 +260,7 @@ console.log(`stack plan incl. availability      p95 ${p.latency4Clients.p95} ms 
 console.log(`client bundle, first route         ${b.firstRouteGzipKb} KB gzip             —                             ${mark(b.met)}`);
 const processes = WORKERS > 1 ? `${WORKERS} workers + primary: ${m.apiTotalRssMb} MB` : 'one process';
 console.log(`server memory, big catalogue       ${m.apiServerRssMb} MB RSS per API process (${processes}; search stand-in ${m.searchStandinRssMb} MB)   ${mark(m.met)}`);
-console.log('not yet measured (features not built): concurrent reservations, price-list import, label PDFs');
+const r = results.reservations as { reservationsPerSecond: number; singleRowUpdatesPerSecond: number; ratio: number; oversoldRows: number; oversoldParts: number; failedReservations: number; jobs: number; unitsOnHand: number; unitsAskedFor: number; met: boolean };
+console.log(`reservations, 16 clients, scarce  ${r.reservationsPerSecond} jobs/s (${r.jobs} jobs asking ${r.unitsAskedFor} of ${r.unitsOnHand} units; oversold rows ${r.oversoldRows}, parts ${r.oversoldParts}; failed ${r.failedReservations})   single-row UPDATE tx, 16 clients: ${r.singleRowUpdatesPerSecond}/s (ratio ${r.ratio})   ${mark(r.met)}`);
+console.log('not yet measured (features not built): price-list import, label PDFs');
 console.log('written to bench-results/bench.json');
