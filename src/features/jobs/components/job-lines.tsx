@@ -5,7 +5,8 @@ import { formatMoney } from '@/lib/format.ts';
 export function JobLines({ job }: { job: Job }) {
   if (job.lines.length === 0) return <p className="text-sm text-ink-soft">The plans’ parts are copied in when the job is ordered.</p>;
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-card">
+    <div className="rounded-lg border border-line bg-card">
+      <div className="overflow-x-auto">
       <table className="w-full min-w-[640px] border-collapse text-sm" aria-label="Job lines">
         <thead className="bg-[#efece4] text-xs uppercase tracking-wide text-ink-soft">
           <tr>
@@ -30,7 +31,7 @@ export function JobLines({ job }: { job: Job }) {
               </td>
               <td className="num px-2 py-1.5 text-right">{l.qty}</td>
               <td className="num px-2 py-1.5 text-right">{l.reserved === l.qty ? <span className="text-teal">✓ {l.reserved}</span> : l.reserved}</td>
-              <td className="num px-2 py-1.5 text-right">{l.backordered ? <span className="font-semibold text-danger">⏳ {l.backordered}</span> : '0'}</td>
+              <td className="num px-2 py-1.5 text-right">{l.backordered ? <span className="font-semibold text-danger">◌ {l.backordered}</span> : '0'}</td>
               <td className="num px-2 py-1.5 text-right">
                 {l.available}
                 {l.short > 0 && <span className="block text-xs font-semibold text-danger">short {l.short}</span>}
@@ -40,21 +41,16 @@ export function JobLines({ job }: { job: Job }) {
             </tr>
           ))}
         </tbody>
-        <tfoot className="border-t border-line text-sm">
-          <tr>
-            <td colSpan={6} className="px-2 py-1 text-right">Subtotal ex GST</td>
-            <td className="num px-2 py-1 text-right">{formatMoney(job.totals.subtotalCents)}</td>
-          </tr>
-          <tr>
-            <td colSpan={6} className="px-2 py-1 text-right">GST 10 %</td>
-            <td className="num px-2 py-1 text-right">{formatMoney(job.totals.gstCents)}</td>
-          </tr>
-          <tr className="font-semibold">
-            <td colSpan={6} className="px-2 py-1 text-right">Total inc GST</td>
-            <td className="num px-2 py-1 text-right">{formatMoney(job.totals.totalCents)}</td>
-          </tr>
-        </tfoot>
       </table>
+      </div>
+      <dl className="ml-auto grid w-full max-w-xs grid-cols-[1fr_auto] gap-x-4 gap-y-0.5 border-t border-line px-2 py-2 text-sm">
+        <dt className="text-right">Subtotal ex GST</dt>
+        <dd className="num text-right">{formatMoney(job.totals.subtotalCents)}</dd>
+        <dt className="text-right">GST 10 %</dt>
+        <dd className="num text-right">{formatMoney(job.totals.gstCents)}</dd>
+        <dt className="text-right font-semibold">Total inc GST</dt>
+        <dd className="num text-right font-semibold">{formatMoney(job.totals.totalCents)}</dd>
+      </dl>
       {job.totals.unpricedLines > 0 && <p className="px-2 pb-2 text-xs text-ink-soft">{job.totals.unpricedLines} line(s) have no list price yet and are left out of the totals.</p>}
     </div>
   );

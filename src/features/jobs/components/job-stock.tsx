@@ -38,7 +38,7 @@ export function JobStock({ job }: { job: Job }) {
           <ul className="divide-y divide-line/70 rounded-lg border border-danger/30 bg-card text-sm">
             {job.backorders.map((b) => (
               <li key={b.sku} className="flex flex-wrap items-baseline justify-between gap-2 px-3 py-1.5">
-                <span className="num font-semibold text-danger">⏳ {b.qty} × {b.sku}</span>
+                <span className="num font-semibold text-danger">◌ {b.qty} × {b.sku}</span>
                 <span className="text-ink-soft">
                   No. {b.position} in the queue{b.unitsAhead ? ` (${b.unitsAhead} units ahead)` : ''} · since {formatProseDate(b.since)}
                 </span>
