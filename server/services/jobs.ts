@@ -8,7 +8,7 @@ import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
 import type { CreateJobInput, JobListQuery, JobStatus } from '@shared/contracts/jobs.ts';
 import type { PlannerService } from './planner.ts';
 import { heldByLine, inStockTransaction, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
-import { assertReservable, reserveInTx } from './reservations.ts';
+import { assertReservable, reservationPlan, reserveInTx } from './reservations.ts';
 
 export interface JobDeps {
   db: Db;
@@ -146,8 +146,10 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
   }
 
   /** One transaction per job, retried on deadlock or serialization failure; the last check is the database's. */
-  function reserveJob(actor: Actor, jobId: string, firmUpOnly = false) {
-    return inStockTransaction(db, (tx) => reserveInTx(tx, jobId, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly }));
+  async function reserveJob(actor: Actor, jobId: string, firmUpOnly = false) {
+    const plan = await reservationPlan(db, jobId);
+    if (plan.lines.length === 0) throw new ConflictError('This job has no lines to reserve.');
+    return inStockTransaction(db, (tx) => reserveInTx(tx, jobId, plan, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly }));
   }
 
   return {
@@ -255,9 +257,6 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const job = await visibleJob(actor, id);
       assertReservable(job.status);
       if (job.status === 'draft') await materialise(actor, job);
-      const { rows, full } = await heldByLine(db, id);
-      if (rows.length === 0) throw new ConflictError('This job has no lines to reserve.');
-      if (full) throw new ConflictError('Every line of this job is already reserved.');
       await reserveJob(actor, id);
       return detail(actor, id);
     },
