@@ -9,6 +9,8 @@ import { settings, user } from '../../server/db/schema/index.ts';
 import { createJobService } from '../../server/services/jobs.ts';
 import { createPlannerService } from '../../server/services/planner.ts';
 import type { Actor } from '../../server/policies/actor.ts';
+import { reservationPlan, reserveInTx } from '../../server/services/reservations.ts';
+import { inStockTransaction } from '../../server/services/ledger.ts';
 
 export const BENCH_JOBS = 10_000;
 const MARKER = 'bench.jobs';
@@ -70,18 +72,24 @@ export async function benchReservations(url: string, { jobs: jobCount = 400 } = 
     const perJobQty = Math.max(1, Math.round((2 * stock) / (jobCount * 2)));
     const [company] = (await db.execute<{ id: string }>(sql`select id from companies where kind = 'installer' order by name limit 1`)).rows;
     const runTag = Date.now().toString(36).toUpperCase();
-    const ids: string[] = [];
     let demand = 0;
-    for (let i = 0; i < jobCount; i++) {
-      // Two lines naming the parts in different orders (what would deadlock a careless lock order).
-      const a = scarce[i % scarce.length]!.sku;
-      const b = scarce[(i * 7 + 3) % scarce.length]!.sku;
-      const lines = a === b ? [{ sku: a, qty: 2 * perJobQty }] : [{ sku: a, qty: perJobQty }, { sku: b, qty: perJobQty }];
-      demand += lines.reduce((s, l) => s + l.qty, 0);
-      const job = await service.create(sales, { companyId: company!.id, reference: `BR-${runTag}-${i}`, lines, preferredWarehouse: i % 2 ? 'WST' : 'NTH' });
-      await service.order(sales, job.job.id);
-      ids.push(job.job.id);
-    }
+    /** A batch of ordered jobs, made 16 at a time. */
+    const batch = async (tag: string) => {
+      const ids: string[] = new Array(jobCount);
+      demand = 0;
+      await run(CLIENTS, jobCount, async (i) => {
+        // Two lines naming the parts in different orders (what would deadlock a careless lock order).
+        const a = scarce[i % scarce.length]!.sku;
+        const b = scarce[(i * 7 + 3) % scarce.length]!.sku;
+        const lines = a === b ? [{ sku: a, qty: 2 * perJobQty }] : [{ sku: a, qty: perJobQty }, { sku: b, qty: perJobQty }];
+        demand += lines.reduce((s, l) => s + l.qty, 0);
+        const job = await service.create(sales, { companyId: company!.id, reference: `BR-${runTag}-${tag}${i}`, lines, preferredWarehouse: i % 2 ? 'WST' : 'NTH' });
+        await service.order(sales, job.job.id);
+        ids[i] = job.job.id;
+      });
+      return ids;
+    };
+    const ids = await batch('A');
 
     // Reference: one single-row UPDATE per transaction, 16 clients, random rows of the 200,000.
     const pool = new pg.Pool({ connectionString: url, max: CLIENTS });
@@ -114,6 +122,15 @@ export async function benchReservations(url: string, { jobs: jobCount = 400 } = 
     // Put the benchmark's units back, so the next run starts from the same stock.
     await run(CLIENTS, ids.length, (i) => service.cancel(sales, ids[i]!).then(() => {}));
 
+    // Where the time goes: the same work as the reservation transaction alone (no HTTP-style
+    // checks before it, no read-back of the job after it).
+    const second = await batch('B');
+    const transactionsPerSecond = await run(CLIENTS, second.length, async (i) => {
+      const plan = await reservationPlan(db, second[i]!);
+      await inStockTransaction(db, (tx) => reserveInTx(tx, second[i]!, plan, { userId: sales.userId, now: new Date(), quoteHoldMs: 0 })).catch(() => void failures++);
+    });
+    await run(CLIENTS, second.length, (i) => service.cancel(sales, second[i]!).then(() => {}));
+
     const ratio = reservationsPerSecond / updatesPerSecond;
     return {
       jobs: ids.length,
@@ -123,6 +140,8 @@ export async function benchReservations(url: string, { jobs: jobCount = 400 } = 
       reservationsPerSecond: Math.round(reservationsPerSecond),
       singleRowUpdatesPerSecond: Math.round(updatesPerSecond),
       ratio: Math.round(ratio * 1000) / 1000,
+      reservationTransactionsPerSecond: Math.round(transactionsPerSecond),
+      transactionRatio: Math.round((transactionsPerSecond / updatesPerSecond) * 1000) / 1000,
       oversoldRows: check.over_rows,
       oversoldParts: check.over_parts,
       unitsReserved: check.reserved,
