@@ -50,6 +50,15 @@ async function orderedJob(agent: Agent, lines: { sku: string; qty: number }[], e
   return ordered.body.data as { id: string; status: string };
 }
 
+describe('the API document', () => {
+  it('lists the job and stock routes with their contracts', async () => {
+    const res = await request(t.app).get('/api/openapi.json').expect(200);
+    expect(Object.keys(res.body.paths)).toEqual(expect.arrayContaining(['/api/jobs', '/api/jobs/{id}', '/api/jobs/{id}/order', '/api/jobs/{id}/reserve', '/api/jobs/{id}/release', '/api/jobs/{id}/cancel', '/api/stock', '/api/stock/movements', '/api/stock/adjustments', '/api/stock/transfers', '/api/stock/receipts', '/api/warehouses']));
+    expect(res.body.paths['/api/jobs'].post.requestBody).toBeTruthy();
+    expect(res.body.paths['/api/stock/receipts'].post.responses['201']).toBeTruthy();
+  });
+});
+
 describe('creating jobs', () => {
   it('asks for a session; purchasing and warehouse cannot create jobs', async () => {
     expect((await request(t.app).get('/api/jobs')).status).toBe(401);
