@@ -252,6 +252,19 @@ describe('reserving', () => {
     expect((await sales.post(`/api/jobs/${job.id}/cancel`)).status).toBe(409);
   });
 
+  it('hands units freed by a cancellation straight to the next job waiting for them', async () => {
+    const p = await stocked([[main, 'C-1', 2]]);
+    const holder = await orderedJob(sales, [{ sku: p.sku, qty: 2 }], { companyId: installer.companyId });
+    await sales.post(`/api/jobs/${holder.id}/reserve`).expect(200);
+    const waiter = await orderedJob(sales, [{ sku: p.sku, qty: 1 }], { companyId: installer2.companyId });
+    expect((await sales.post(`/api/jobs/${waiter.id}/reserve`).expect(200)).body.data.backorders).toMatchObject([{ qty: 1 }]);
+    await sales.post(`/api/jobs/${holder.id}/cancel`).expect(200);
+    const after = (await sales.get(`/api/jobs/${waiter.id}`)).body.data;
+    expect(after.status).toBe('reserved');
+    expect(after.backorders).toEqual([]);
+    expect((await sales.get(`/api/stock?sku=${p.sku}`)).body.data).toMatchObject([{ onHand: 2, reserved: 1, available: 1 }]);
+  });
+
   it('will not let an adjustment take on hand below what is reserved (409)', async () => {
     const p = await stocked([[main, 'Q-1', 5]]);
     const job = await orderedJob(sales, [{ sku: p.sku, qty: 4 }], { companyId: installer.companyId });

@@ -137,10 +137,10 @@ export function NewJobForm({ plans, customers, warehouses, initialPlanId, onCrea
         <legend className="px-1 text-sm font-semibold">Extra lines by SKU</legend>
         <div className="space-y-2">
           {lines.fields.map((f, i) => (
-            <div key={f.id} className="flex flex-wrap items-end gap-2">
+            <div key={f.id} className="flex flex-wrap items-start gap-2">
               <TextField label="SKU" mono className="w-44" error={err.lines?.[i]?.sku?.message} {...form.register(`lines.${i}.sku`)} />
               <TextField label="Qty" type="number" min={1} step={1} mono className="w-24" error={err.lines?.[i]?.qty?.message} {...form.register(`lines.${i}.qty`, { valueAsNumber: true })} />
-              <Button variant="ghost" onClick={() => lines.remove(i)} aria-label={`Remove line ${i + 1}`}>
+              <Button variant="ghost" className="mt-5" onClick={() => lines.remove(i)} aria-label={`Remove line ${i + 1}`}>
                 Remove
               </Button>
             </div>

@@ -72,12 +72,12 @@ export function ReceiptForm({ warehouses }: { warehouses: Warehouses }) {
       </div>
       <div className="space-y-2 rounded-lg border border-line bg-card p-4">
         {lines.fields.map((f, i) => (
-          <div key={f.id} className="flex flex-wrap items-end gap-2">
+          <div key={f.id} className="flex flex-wrap items-start gap-2">
             <TextField label="SKU" mono className="w-44" error={err.lines?.[i]?.sku?.message} {...form.register(`lines.${i}.sku`)} />
             <TextField label="Bin" mono className="w-28" hint="Blank: default bin" error={err.lines?.[i]?.bin?.message} {...form.register(`lines.${i}.bin`, { setValueAs: (v: string) => v || undefined })} />
             <TextField label="Qty" type="number" min={1} step={1} mono className="w-24" error={err.lines?.[i]?.qty?.message} {...form.register(`lines.${i}.qty`, { valueAsNumber: true })} />
             {lines.fields.length > 1 && (
-              <Button variant="ghost" onClick={() => lines.remove(i)} aria-label={`Remove line ${i + 1}`}>
+              <Button variant="ghost" className="mt-5" onClick={() => lines.remove(i)} aria-label={`Remove line ${i + 1}`}>
                 Remove
               </Button>
             )}

@@ -27,11 +27,11 @@ export function WarehouseForm({ warehouse, onDone }: { warehouse?: Warehouse; on
     );
   });
   return (
-    <form onSubmit={submit} noValidate aria-label={warehouse ? `Edit ${warehouse.code}` : 'Add a warehouse'} className="flex flex-wrap items-end gap-2">
+    <form onSubmit={submit} noValidate aria-label={warehouse ? `Edit ${warehouse.code}` : 'Add a warehouse'} className="flex flex-wrap items-start gap-2">
       <TextField label="Code" mono className="w-28" error={err.code?.message} {...form.register('code')} />
       <TextField label="Name" className="w-56" error={err.name?.message} {...form.register('name')} />
       <TextField label="Rank" type="number" min={1} mono className="w-20" hint="1 is tried first" error={err.rank?.message} {...form.register('rank', { valueAsNumber: true })} />
-      <Button type="submit" variant={warehouse ? 'secondary' : 'primary'} disabled={save.isPending}>
+      <Button type="submit" variant={warehouse ? 'secondary' : 'primary'} className="mt-5" disabled={save.isPending}>
         {warehouse ? 'Save' : 'Add warehouse'}
       </Button>
       {problem && <Notice tone="danger">{problem}</Notice>}
@@ -57,10 +57,10 @@ export function BinForm({ warehouseId, bin }: { warehouseId: string; bin?: { id:
     );
   });
   return (
-    <form onSubmit={submit} noValidate aria-label={bin ? `Bin ${bin.code}` : 'Add a bin'} className="flex flex-wrap items-end gap-2">
+    <form onSubmit={submit} noValidate aria-label={bin ? `Bin ${bin.code}` : 'Add a bin'} className="flex flex-wrap items-start gap-2">
       <TextField label="Bin" mono className="w-28" error={err.code?.message} {...form.register('code')} />
       <TextField label="Pick order" type="number" min={0} mono className="w-24" error={err.pickOrder?.message} {...form.register('pickOrder', { valueAsNumber: true })} />
-      <Button type="submit" variant={bin ? 'ghost' : 'secondary'} disabled={save.isPending}>
+      <Button type="submit" variant={bin ? 'ghost' : 'secondary'} className="mt-5" disabled={save.isPending}>
         {bin ? 'Save' : 'Add bin'}
       </Button>
       {problem && <Notice tone="danger">{problem}</Notice>}
