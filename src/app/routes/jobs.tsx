@@ -1,7 +1,9 @@
 import { useState } from 'react';
-import { Link, useNavigate, useSearchParams } from 'react-router';
+import { Link, useNavigate } from 'react-router';
 import { JOB_STATUSES, JOB_STATUS_LABELS, type JobStatus } from '@shared/contracts/jobs.ts';
 import { Page } from '@/components/ui/page.tsx';
+import { Pager } from '@/components/ui/pager.tsx';
+import { useUrlFilters } from '@/lib/use-url-filters.ts';
 import { Notice } from '@/components/ui/notice.tsx';
 import { Button } from '@/components/ui/button.tsx';
 import { SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
@@ -17,28 +19,19 @@ const PAGE_SIZE = 50;
 export function JobsRoute() {
   const { data: me } = useMe();
   const navigate = useNavigate();
-  const [params, setParams] = useSearchParams();
+  const { get, set, page, setPage } = useUrlFilters();
   const staff = hasAbility(me, 'customers.view');
   const { data: customers = [] } = useCustomers(staff);
   const [problem, setProblem] = useState<string | null>(null);
   const filters = {
-    status: (params.get('status') || undefined) as JobStatus | undefined,
-    companyId: params.get('company') || undefined,
-    q: params.get('q') || undefined,
-    from: params.get('from') || undefined,
-    to: params.get('to') || undefined,
+    status: get('status') as JobStatus | undefined,
+    companyId: get('company'),
+    q: get('q'),
+    from: get('from'),
+    to: get('to'),
   };
-  const page = Number(params.get('page') ?? 1) || 1;
   const jobs = useJobs({ ...filters, page, pageSize: PAGE_SIZE });
-  const set = (key: string, value: string) => {
-    const next = new URLSearchParams(params);
-    if (value) next.set(key, value);
-    else next.delete(key);
-    if (key !== 'page') next.delete('page');
-    setParams(next, { replace: true });
-  };
   const total = jobs.data?.total ?? 0;
-  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
   const exportCsv = () => {
     setProblem(null);
     const q = new URLSearchParams(Object.entries(filters).filter((e): e is [string, string] => !!e[1]));
@@ -76,22 +69,7 @@ export function JobsRoute() {
       {problem && <Notice tone="danger">{problem}</Notice>}
       {jobs.error && <Notice tone="danger">{jobs.error.message}</Notice>}
       {jobs.isLoading ? <p className="text-sm text-ink-soft">Loading jobs…</p> : <JobsTable jobs={jobs.data?.data ?? []} showCustomer={staff} onOpen={(j) => navigate(paths.job.href(j.id))} />}
-      <nav aria-label="Pages" className="mt-2 flex items-center justify-between text-sm text-ink-soft">
-        <span>
-          {total} job{total === 1 ? '' : 's'}
-        </span>
-        <span className="flex items-center gap-2">
-          <Button variant="ghost" disabled={page <= 1} onClick={() => set('page', String(page - 1))}>
-            ← Newer
-          </Button>
-          <span className="num">
-            {page} / {pages}
-          </span>
-          <Button variant="ghost" disabled={page >= pages} onClick={() => set('page', String(page + 1))}>
-            Older →
-          </Button>
-        </span>
-      </nav>
+      <Pager page={page} pageSize={PAGE_SIZE} total={total} noun={total === 1 ? 'job' : 'jobs'} onPage={setPage} labels={['← Newer', 'Older →']} />
     </Page>
   );
 }

@@ -1,10 +1,11 @@
 import { useMemo } from 'react';
-import { Link, useSearchParams } from 'react-router';
+import { Link } from 'react-router';
 import type { ColumnDef } from '@tanstack/react-table';
 import { MOVEMENT_KINDS, MOVEMENT_KIND_LABELS, type Movement, type MovementKind } from '@shared/contracts/stock.ts';
 import { Page } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
-import { Button } from '@/components/ui/button.tsx';
+import { Pager } from '@/components/ui/pager.tsx';
+import { useUrlFilters } from '@/lib/use-url-filters.ts';
 import { DataTable } from '@/components/ui/data-table.tsx';
 import { SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
 import { paths } from '@/config/paths.ts';
@@ -15,24 +16,10 @@ const PAGE_SIZE = 50;
 
 /** The stock ledger, newest first: every unit that came, went or moved, by whom and why. */
 export function StockMovementsRoute() {
-  const [params, setParams] = useSearchParams();
-  const q = {
-    sku: params.get('sku') || undefined,
-    warehouse: params.get('warehouse') || undefined,
-    kind: (params.get('kind') || undefined) as MovementKind | undefined,
-    from: params.get('from') || undefined,
-    to: params.get('to') || undefined,
-  };
-  const page = Number(params.get('page') ?? 1) || 1;
+  const { get, set, page, setPage } = useUrlFilters();
+  const q = { sku: get('sku'), warehouse: get('warehouse'), kind: get('kind') as MovementKind | undefined, from: get('from'), to: get('to') };
   const moves = useMovements({ ...q, page, pageSize: PAGE_SIZE });
   const { data: warehouses = [] } = useWarehouses();
-  const set = (key: string, value: string) => {
-    const next = new URLSearchParams(params);
-    if (value) next.set(key, value);
-    else next.delete(key);
-    if (key !== 'page') next.delete('page');
-    setParams(next, { replace: true });
-  };
   const columns = useMemo<ColumnDef<Movement>[]>(
     () => [
       { id: 'at', accessorKey: 'at', header: 'When', cell: (c) => <span className="num whitespace-nowrap">{c.row.original.at.slice(0, 16).replace('T', ' ')}</span> },
@@ -65,7 +52,6 @@ export function StockMovementsRoute() {
     [],
   );
   const total = moves.data?.total ?? 0;
-  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
   return (
     <Page title="Stock movements" subtitle="The ledger: levels are always the sum of these.">
       <form role="search" aria-label="Filter movements" className="mb-3 grid gap-2 sm:grid-cols-3 lg:grid-cols-5" onSubmit={(e) => e.preventDefault()}>
@@ -81,20 +67,7 @@ export function StockMovementsRoute() {
       </form>
       {moves.error && <Notice tone="danger">{moves.error.message}</Notice>}
       <DataTable label="Stock movements" data={moves.data?.data ?? []} columns={columns} getRowId={(m) => String(m.id)} dense empty={moves.isLoading ? 'Loading…' : 'No movements match.'} />
-      <nav aria-label="Pages" className="mt-2 flex items-center justify-between text-sm text-ink-soft">
-        <span>{total} movements</span>
-        <span className="flex items-center gap-2">
-          <Button variant="ghost" disabled={page <= 1} onClick={() => set('page', String(page - 1))}>
-            ← Newer
-          </Button>
-          <span className="num">
-            {page} / {pages}
-          </span>
-          <Button variant="ghost" disabled={page >= pages} onClick={() => set('page', String(page + 1))}>
-            Older →
-          </Button>
-        </span>
-      </nav>
+      <Pager page={page} pageSize={PAGE_SIZE} total={total} noun="movements" onPage={setPage} labels={['← Newer', 'Older →']} />
     </Page>
   );
 }

@@ -1,7 +1,8 @@
-import { Link, useNavigate, useSearchParams } from 'react-router';
+import { Link, useNavigate } from 'react-router';
 import { Page } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
-import { Button } from '@/components/ui/button.tsx';
+import { Pager } from '@/components/ui/pager.tsx';
+import { useUrlFilters } from '@/lib/use-url-filters.ts';
 import { SelectField, TextField } from '@/components/ui/field.tsx';
 import { paths } from '@/config/paths.ts';
 import { hasAbility, useMe } from '@/features/auth/api/get-me.ts';
@@ -15,21 +16,12 @@ const linkClass = 'inline-flex items-center rounded-md border border-line bg-car
 export function StockRoute() {
   const { data: me } = useMe();
   const navigate = useNavigate();
-  const [params, setParams] = useSearchParams();
-  const sku = params.get('sku') ?? '';
-  const warehouse = params.get('warehouse') ?? '';
-  const page = Number(params.get('page') ?? 1) || 1;
+  const { get, set, page, setPage } = useUrlFilters();
+  const sku = get('sku') ?? '';
+  const warehouse = get('warehouse') ?? '';
   const stock = useStock({ sku: sku || undefined, warehouse: warehouse || undefined, page, pageSize: PAGE_SIZE });
   const { data: warehouses = [] } = useWarehouses();
-  const set = (key: string, value: string) => {
-    const next = new URLSearchParams(params);
-    if (value) next.set(key, value);
-    else next.delete(key);
-    if (key !== 'page') next.delete('page');
-    setParams(next, { replace: true });
-  };
   const total = stock.data?.total ?? 0;
-  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
   return (
     <Page
       title="Stock"
@@ -58,20 +50,7 @@ export function StockRoute() {
       </form>
       {stock.error && <Notice tone="danger">{stock.error.message}</Notice>}
       {stock.isLoading ? <p className="text-sm text-ink-soft">Loading stock…</p> : <LevelsTable levels={stock.data?.data ?? []} onOpen={(l) => navigate(paths.stockMovements.href(new URLSearchParams({ sku: l.sku }).toString()))} />}
-      <nav aria-label="Pages" className="mt-2 flex items-center justify-between text-sm text-ink-soft">
-        <span>{total} rows</span>
-        <span className="flex items-center gap-2">
-          <Button variant="ghost" disabled={page <= 1} onClick={() => set('page', String(page - 1))}>
-            ← Previous
-          </Button>
-          <span className="num">
-            {page} / {pages}
-          </span>
-          <Button variant="ghost" disabled={page >= pages} onClick={() => set('page', String(page + 1))}>
-            Next →
-          </Button>
-        </span>
-      </nav>
+      <Pager page={page} pageSize={PAGE_SIZE} total={total} noun="rows" onPage={setPage} />
     </Page>
   );
 }
