@@ -64,9 +64,19 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
   }
 
   async function detail(actor: Actor, id: string) {
-    const job = await visibleJob(actor, id);
-    const [company] = await db.select({ id: companies.id, name: companies.name }).from(companies).where(eq(companies.id, job.companyId));
-    const [preferred] = job.preferredWarehouseId ? await db.select({ code: warehouses.code, name: warehouses.name }).from(warehouses).where(eq(warehouses.id, job.preferredWarehouseId)) : [];
+    authorize(actor, 'jobs.view');
+    if (!UUID_RE.test(id)) throw new NotFoundError('That job');
+    // The job with its company and preferred warehouse in one round trip; the rest in parallel.
+    const [head] = await db
+      .select({ job: jobs, company: { id: companies.id, name: companies.name }, preferredCode: warehouses.code, preferredName: warehouses.name })
+      .from(jobs)
+      .innerJoin(companies, eq(companies.id, jobs.companyId))
+      .leftJoin(warehouses, eq(warehouses.id, jobs.preferredWarehouseId))
+      .where(eq(jobs.id, id));
+    if (!head) throw new NotFoundError('That job');
+    assertCanSeeCompany(actor, head.job.companyId, 'That job');
+    const { job, company } = head;
+    const preferred = head.preferredCode && head.preferredName ? { code: head.preferredCode, name: head.preferredName } : null;
     const [plans, lines, held, queue, history] = await Promise.all([
       db
         .select({ id: stackPlans.id, name: stackPlans.name, rangeName: ranges.name, summary: stackPlans.summary })
@@ -132,7 +142,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       cancel: can(actor.role, 'jobs.cancel') && BEFORE_PICKING.includes(job.status),
     };
     const holdExpiresAt = held.reduce<Date | null>((min, r) => (r.expiresAt && (!min || r.expiresAt < min) ? r.expiresAt : min), null);
-    return { job, company: company!, preferred: preferred ?? null, plans, lines, held, queue, history, abilities, holdExpiresAt };
+    return { job, company, preferred, plans, lines, held, queue, history, abilities, holdExpiresAt };
   }
 
   /** Shared by reserve (as a quote on a draft) and order: the plans' lines are copied in first. */
