@@ -6,6 +6,7 @@ import { settings } from '../server/db/schema/index.ts';
 import type { Role } from '../shared/roles.ts';
 import { DEMO_PASSWORD, makeCompany, makeUser, wholesaler } from './factories.ts';
 import { seedCatalogue } from './catalogue.ts';
+import { seedDemoJobs } from './jobs.ts';
 import type { PartsIndex } from '../server/search/parts-index.ts';
 import signIns from './demo-sign-ins.json' with { type: 'json' };
 
@@ -23,7 +24,7 @@ const INSTALLERS = [
 /** Seeds once: a second run finds the marker and adds nothing. */
 export async function seedDemo(db: Db, auth: Auth, partsIndex?: PartsIndex) {
   const [done] = await db.select().from(settings).where(eq(settings.key, SEED_KEY));
-  if (done && (done.value as { version?: number }).version === DEMO_VERSION) return { seeded: false };
+  if (done && (done.value as { version?: number }).version === DEMO_VERSION) return { seeded: await seedDemoJobs(db) };
 
   const home = await wholesaler(db);
   const customers = new Map<string, string>();
@@ -41,6 +42,7 @@ export async function seedDemo(db: Db, auth: Auth, partsIndex?: PartsIndex) {
     const value = { version: DEMO_VERSION, at: new Date().toISOString() };
     await tx.insert(settings).values({ key: SEED_KEY, value }).onConflictDoUpdate({ target: settings.key, set: { value } });
   });
+  await seedDemoJobs(db);
   await partsIndex?.rebuild(db);
   return { seeded: true };
 }

@@ -26,6 +26,10 @@ import { partRoutes } from './routes/parts.ts';
 import { stackPlanRoutes } from './routes/stack-plans.ts';
 import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerService } from './services/planner.ts';
 import { createTtlCache } from './lib/ttl-cache.ts';
+import { createStockService, type StockService } from './services/stock.ts';
+import { createJobService, type JobService } from './services/jobs.ts';
+import { stockRoutes } from './routes/stock.ts';
+import { jobRoutes } from './routes/jobs.ts';
 
 export interface AppOptions {
   db: Db;
@@ -38,6 +42,10 @@ export interface AppOptions {
   trustProxy?: string | number | boolean;
   /** Built client to serve; omitted in API-only tests. */
   clientDir?: string;
+  /** The clock for stock and jobs (tests move it to expire quote holds). */
+  now?: () => Date;
+  /** How many days a quote (a draft's reservation) holds its units. */
+  quoteHoldDays?: number;
 }
 
 export interface AppDeps extends AppOptions {
@@ -47,6 +55,8 @@ export interface AppDeps extends AppOptions {
   catalogue: CatalogueService;
   media: MediaService;
   planner: PlannerService;
+  stock: StockService;
+  jobs: JobService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks and benchmarks. */
@@ -54,6 +64,7 @@ export function createServices(options: AppOptions): AppDeps {
   const partsIndex = createPartsIndex(options.search);
   const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
   const sessionCache = createSessionCache();
+  const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (ids) => partsIndex.sync(options.db, [...new Set(ids)]) });
   return {
     ...options,
     partsIndex,
@@ -61,7 +72,9 @@ export function createServices(options: AppOptions): AppDeps {
     users: createUserService({ ...options, onAccessChanged: sessionCache.clear }),
     catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
     media: createMediaService({ db: options.db, files: options.files }),
-    planner: createPlannerService({ db: options.db, rangeCache, onRangeChanged: (ids) => partsIndex.sync(options.db, [...new Set(ids)]) }),
+    planner,
+    stock: createStockService({ db: options.db, now: options.now }),
+    jobs: createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays }),
   };
 }
 
@@ -116,6 +129,8 @@ export function createApp(options: AppOptions) {
   userRoutes(api, deps);
   partRoutes(api, deps);
   stackPlanRoutes(api, deps);
+  stockRoutes(api, deps);
+  jobRoutes(api, deps);
   // Routes are fixed once the app is built, so the document is generated once.
   let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {

@@ -24,7 +24,7 @@ export function buildContext(env: Env): AppOptions {
     logger,
   });
   const search = createSearchClient({ host: env.MEILI_HOST ?? 'http://127.0.0.1:7701', apiKey: env.MEILI_API_KEY });
-  return { trustProxy: trustProxySetting(env.TRUST_PROXY), db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR) };
+  return { trustProxy: trustProxySetting(env.TRUST_PROXY), db, auth, search, files: createLocalFileStore(path.resolve(env.DATA_DIR)), logger, trustedOrigins, clientDir: path.resolve(env.CLIENT_DIR), quoteHoldDays: env.QUOTE_HOLD_DAYS };
 }
 
 /**

@@ -17,6 +17,8 @@ const EnvSchema = z.object({
   /** Worker processes sharing the port (node:cluster); 1 runs a single process. */
   WEB_CONCURRENCY: z.coerce.number().int().min(1).max(32).default(1),
   DATA_DIR: z.string().default('.data/files'),
+  /** How many days a quote (a draft job's reservation) holds stock before it lapses. */
+  QUOTE_HOLD_DAYS: z.coerce.number().int().min(1).max(90).default(7),
 });
 
 export type Env = z.infer<typeof EnvSchema>;

@@ -1,9 +1,10 @@
 import cluster from 'node:cluster';
 import { readEnv } from './env.ts';
-import { migrateDb } from './db/client.ts';
+import { createDb, migrateDb } from './db/client.ts';
 import { buildContext } from './context.ts';
-import { createApp } from './app.ts';
+import { createApp, createServices } from './app.ts';
 import { createHttpServer } from './http/server.ts';
+import { startScheduler } from './jobs/quote-expiry.ts';
 import { createPartsIndex } from './search/parts-index.ts';
 
 const env = readEnv();
@@ -18,6 +19,15 @@ if (cluster.isPrimary) {
     return null;
   });
   if (index?.rebuilt) context.logger.info(`search index rebuilt with ${index.documents} parts`);
+  // Scheduled work (quote holds lapsing) runs in the primary, on the same PostgreSQL, with its own
+  // small pool (the primary's is closed when workers serve).
+  const scheduler = await startScheduler({ connectionString: env.DATABASE_URL, jobs: createServices({ ...context, db: createDb(env.DATABASE_URL, { max: 3 }) }).jobs, logger: context.logger }).catch((e: Error) => {
+    context.logger.error({ err: e }, 'scheduler not started: quote holds will not lapse until it runs');
+    return null;
+  });
+  const stopScheduler = () => void scheduler?.stop({ graceful: false, close: true });
+  process.once('SIGTERM', stopScheduler);
+  process.once('SIGINT', stopScheduler);
 }
 
 if (cluster.isPrimary && env.WEB_CONCURRENCY > 1) {

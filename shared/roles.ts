@@ -27,6 +27,15 @@ export const ABILITIES = {
   'stock.view': staff,
   'suppliers.view': ['admin', 'purchasing', 'warehouse', 'sales'],
   'customers.view': staff,
+  'jobs.view': everyone,
+  'jobs.create': ['admin', 'sales', 'installer'],
+  'jobs.reserve': ['admin', 'sales'],
+  'jobs.cancel': ['admin', 'sales'],
+  'stock.adjust': ['admin', 'warehouse'],
+  'stock.transfer': ['admin', 'warehouse'],
+  'stock.receive': ['admin', 'warehouse'],
+  'stock.limits': ['admin', 'purchasing', 'warehouse'],
+  'warehouses.manage': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Ability = keyof typeof ABILITIES;

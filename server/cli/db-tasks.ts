@@ -15,6 +15,7 @@ for (const task of tasks) {
   if (task === 'reset') {
     await db.execute(sql`drop schema if exists public cascade`);
     await db.execute(sql`drop schema if exists drizzle cascade`);
+    await db.execute(sql`drop schema if exists pgboss cascade`);
     await db.execute(sql`create schema public`);
     console.log('database emptied');
     await migrateDb(db);

@@ -19,11 +19,11 @@ export function AppLayout() {
     signOut.mutate({ everywhere }, { onSettled: () => navigate(paths.signIn.href(), { replace: true }) });
 
   return (
-    <div className="flex min-h-screen">
+    <div className="flex min-h-screen flex-col md:flex-row">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-card focus:p-2">
         Skip to content
       </a>
-      <nav aria-label="Main" className="flex w-56 shrink-0 flex-col bg-ink text-paper">
+      <nav aria-label="Main" className="flex w-full shrink-0 flex-col bg-ink text-paper md:w-56">
         <div className="flex items-center gap-2 px-4 py-4">
           <Logo />
           <span className="text-lg font-semibold tracking-tight">Stackyard</span>
@@ -31,7 +31,7 @@ export function AppLayout() {
         <p className="px-4 pb-3 text-xs uppercase tracking-wider text-paper/60" data-testid="nav-role">
           {ROLE_LABELS[me.role]}
         </p>
-        <ul className="flex-1 space-y-0.5 px-2">
+        <ul className="flex flex-1 flex-wrap gap-0.5 px-2 pb-2 md:block md:space-y-0.5 md:pb-0">
           {items.map((item) => (
             <li key={item.href}>
               <NavLink

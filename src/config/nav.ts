@@ -15,5 +15,8 @@ export const NAV: NavItem[] = [
   { label: 'Catalogue', href: paths.catalogue.href(), needs: 'catalogue.view', blurb: 'Find any part by name, SKU, GTIN or supplier code; press / to search, or scan.' },
   { label: 'Stack planner', href: paths.planner.href(), needs: 'plans.create', blurb: 'Turn a range and a stack size, or a target usable kWh, into a complete bill of materials.' },
   { label: 'Saved plans', href: paths.plans.href(), needs: 'plans.create', blurb: 'Draft plans for your sites, ready to reopen, print or export.' },
+  { label: 'Jobs', href: paths.jobs.href(), needs: 'jobs.view', blurb: 'Orders for each site: reserved, backordered and where every unit is held.' },
+  { label: 'Stock', href: paths.stock.href(), needs: 'stock.view', blurb: 'Levels per warehouse and bin, the movement ledger, receipts, adjustments and transfers.' },
+  { label: 'Warehouses', href: paths.warehouses.href(), needs: 'warehouses.manage', blurb: 'Warehouses by rank and their bins in pick order.' },
   { label: 'Users', href: paths.users.href(), needs: 'users.manage', blurb: 'Create sign-ins, set roles and companies, reset passwords, deactivate.' },
 ];

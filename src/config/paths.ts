@@ -11,5 +11,13 @@ export const paths = {
   planner: { path: '/planner', href: (search?: string) => (search ? `/planner?${search}` : '/planner') },
   plans: { path: '/plans', href: () => '/plans' },
   plan: { path: '/plans/:id', href: (id: string) => `/plans/${encodeURIComponent(id)}` },
+  jobs: { path: '/jobs', href: () => '/jobs' },
+  jobNew: { path: '/jobs/new', href: (planId?: string) => (planId ? `/jobs/new?plan=${encodeURIComponent(planId)}` : '/jobs/new') },
+  job: { path: '/jobs/:id', href: (id: string) => `/jobs/${encodeURIComponent(id)}` },
+  stock: { path: '/stock', href: () => '/stock' },
+  stockMovements: { path: '/stock/movements', href: (search?: string) => (search ? `/stock/movements?${search}` : '/stock/movements') },
+  stockEntry: { path: '/stock/entry', href: () => '/stock/entry' },
+  stockLow: { path: '/stock/low', href: () => '/stock/low' },
+  warehouses: { path: '/admin/warehouses', href: () => '/admin/warehouses' },
   rangeEdit: { path: '/ranges/:code/edit', href: (code: string) => `/ranges/${encodeURIComponent(code)}/edit` },
 } as const;

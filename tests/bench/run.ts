@@ -19,6 +19,7 @@ import { createSearchClient } from '../../server/search/client.ts';
 import { catalogueSearches } from '../../server/services/catalogue.ts';
 import { PartListQuerySchema } from '../../shared/contracts/parts.ts';
 import { BENCH_PARTS, generateBenchCatalogue } from './generate.ts';
+import { benchReservations, generateBenchJobs } from './reservations.ts';
 
 const API_PORT = Number(process.env.BENCH_API_PORT ?? 3390);
 const SEARCH_PORT = Number(process.env.BENCH_SEARCH_PORT ?? 7790);
@@ -90,6 +91,7 @@ await seedDemo(context.db, context.auth);
 console.log('generating the benchmark catalogue (first run only)…');
 const t0 = performance.now();
 if (await generateBenchCatalogue(context.db)) console.log(`  generated in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+if (await generateBenchJobs(context.db)) console.log('  and 10,000 jobs');
 
 // With the bounded heap `npm start` gives it (STANDIN_NODE_OPTIONS in server/cli/settings.mjs).
 const standin = child('server/search/standin/main.ts', { SEARCH_PORT: String(SEARCH_PORT), NODE_OPTIONS: '--max-old-space-size=256' });
@@ -215,6 +217,18 @@ async function stackPlans() {
 }
 
 /** The gzip size of what the first route loads. */
+/** Concurrent reservations on scarce parts beside single-row UPDATE transactions on the same server. */
+async function reservations() {
+  const r = await benchReservations(env.DATABASE_URL);
+  const line: Line = {
+    what: 'reservations on scarce parts, 16 clients',
+    figure: `${r.reservationsPerSecond} jobs/s vs single-row UPDATE ${r.singleRowUpdatesPerSecond} tx/s (ratio ${r.ratio}); oversold ${r.oversoldRows}`,
+    target: '≥ 40 % of reference, 0 oversold',
+    met: r.met,
+  };
+  return { key: 'reservations', result: r, lines: [line] };
+}
+
 async function bundle() {
   const dist = path.resolve('dist/client');
   const html = readFileSync(path.join(dist, 'index.html'), 'utf8');
@@ -252,6 +266,7 @@ try {
   await run(stackPlans());
   await run(bundle());
   await run(typing(await indexOnly(10_000), 50));
+  await run(reservations());
 } finally {
   await clients.close();
   await search.close();
@@ -268,5 +283,5 @@ const width = Math.max(...lines.map((l) => l.what.length));
 console.log('');
 for (const l of lines) console.log(`${l.what.padEnd(width)}  ${l.figure}   target ${l.target}  ${mark(l.met)}`);
 console.log(`load average (1 min) ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores: other work on this machine slows every figure`);
-console.log('not yet measured (features not built): concurrent reservations, price-list import, label PDFs');
+console.log('not yet measured (features not built): price-list import, label PDFs');
 console.log('written to bench-results/bench.json');

@@ -8,12 +8,12 @@ beforeAll(async () => {
 afterAll(() => h?.close());
 
 const ROLES = [
-  { email: 'admin@stackyard.test', role: 'Administrator', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Users'] },
-  { email: 'purchasing@stackyard.test', role: 'Purchasing', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans'] },
-  { email: 'warehouse@stackyard.test', role: 'Warehouse', nav: ['Home', 'Catalogue'] },
-  { email: 'sales@stackyard.test', role: 'Trade desk', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans'] },
-  { email: 'installer@stackyard.test', role: 'Installer', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans'] },
-  { email: 'installer2@stackyard.test', role: 'Installer', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans'] },
+  { email: 'admin@stackyard.test', role: 'Administrator', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock', 'Warehouses', 'Users'] },
+  { email: 'purchasing@stackyard.test', role: 'Purchasing', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock'] },
+  { email: 'warehouse@stackyard.test', role: 'Warehouse', nav: ['Home', 'Catalogue', 'Jobs', 'Stock'] },
+  { email: 'sales@stackyard.test', role: 'Trade desk', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock'] },
+  { email: 'installer@stackyard.test', role: 'Installer', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs'] },
+  { email: 'installer2@stackyard.test', role: 'Installer', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs'] },
 ];
 
 describe('signing in', () => {

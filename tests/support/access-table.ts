@@ -12,7 +12,10 @@ export type FixtureKey =
   | 'plan' // a plan saved by an installer of company A (the "own" company)
   | 'range' // a demo range
   | 'user' // a user the admin routes may change
-  | 'customer'; // company A (the installer's own), for staff saving plans for a customer
+  | 'customer' // company A (the installer's own), for staff saving plans for a customer
+  | 'job' // a job of company A, made by its installer
+  | 'warehouse' // a demo warehouse
+  | 'bin'; // a bin of `warehouse`
 export type Fixtures = Record<FixtureKey, string>;
 
 export interface OperationAccess {
@@ -35,6 +38,9 @@ const staff: readonly Role[] = ['admin', 'purchasing', 'warehouse', 'sales'];
 const editors: readonly Role[] = ['admin', 'purchasing'];
 const planners: readonly Role[] = ['admin', 'purchasing', 'sales', 'installer'];
 const admins: readonly Role[] = ['admin'];
+const jobMakers: readonly Role[] = ['admin', 'sales', 'installer'];
+const desk: readonly Role[] = ['admin', 'sales'];
+const storemen: readonly Role[] = ['admin', 'warehouse'];
 
 const plan = (f: Fixtures) => ({ rangeId: f.range, modules: 3 });
 
@@ -80,6 +86,33 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'PUT /api/ranges/{id}': { allow: editors, params: { id: 'range' } },
   'GET /api/customers': { allow: staff },
   'GET /api/inverters': { allow: everyone },
+
+  // jobs (installers: their own company's only)
+  'POST /api/jobs': { allow: jobMakers, body: (f) => ({ reference: `Matrix ${Math.random().toString(36).slice(2, 10)}`, companyId: f.customer, lines: [{ sku: f.sku, qty: 1 }] }) },
+  'GET /api/jobs': { allow: everyone },
+  'GET /api/jobs.csv': { allow: everyone },
+  'GET /api/jobs/{id}': { allow: everyone, companyOwned: true, params: { id: 'job' } },
+  'POST /api/jobs/{id}/order': { allow: jobMakers, companyOwned: true, params: { id: 'job' } },
+  'POST /api/jobs/{id}/reserve': { allow: desk, companyOwned: true, params: { id: 'job' } },
+  'POST /api/jobs/{id}/release': { allow: desk, companyOwned: true, params: { id: 'job' } },
+  'POST /api/jobs/{id}/cancel': { allow: desk, companyOwned: true, params: { id: 'job' } },
+
+  // stock (staff only)
+  'GET /api/stock': { allow: staff },
+  'GET /api/stock/movements': { allow: staff },
+  'GET /api/stock/low': { allow: staff },
+  'POST /api/stock/adjustments': { allow: storemen },
+  'POST /api/stock/counts': { allow: storemen },
+  'POST /api/stock/transfers': { allow: storemen },
+  'POST /api/stock/receipts': { allow: storemen },
+  'POST /api/stock/returns': { allow: storemen },
+  'PUT /api/stock/limits/{sku}': { allow: ['admin', 'purchasing', 'warehouse'], params: { sku: 'sku' } },
+  'PUT /api/stock/default-bins': { allow: admins },
+  'GET /api/warehouses': { allow: staff },
+  'POST /api/warehouses': { allow: admins },
+  'PUT /api/warehouses/{id}': { allow: admins, params: { id: 'warehouse' } },
+  'POST /api/warehouses/{id}/bins': { allow: admins, params: { id: 'warehouse' } },
+  'PUT /api/warehouses/{id}/bins/{binId}': { allow: admins, params: { id: 'warehouse', binId: 'bin' } },
 };
 
 export type Caller = 'anonymous' | Role | 'other-installer';

@@ -49,7 +49,13 @@ export async function arrangeFixtures(t: TestApp): Promise<{ fixtures: Fixtures;
   const mediaToDelete = await upload();
   const saved = await agents.installer.post('/api/stack-plans/saved').send({ name: 'Own company plan', request: { rangeId: range, modules: 3 } }).expect(201);
   const user = await makeUser(t.db, t.auth, { role: 'sales' });
-  return { fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId }, agents };
+  const job = await agents.installer.post('/api/jobs').send({ reference: 'Own company job', lines: [{ sku, qty: 1 }] }).expect(201);
+  const { rows: binRows } = await t.db.execute<{ warehouse: string; bin: string }>(sql`select warehouse_id as warehouse, id as bin from bins order by code limit 1`);
+  const { warehouse, bin } = binRows[0]!;
+  return {
+    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin },
+    agents,
+  };
 }
 
 /** The path with each {param} filled (already encoded by the caller when it wants raw bytes). */

@@ -34,7 +34,7 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string; logger?: Logger; trustProxy?: string | number | boolean; connectVia?: (url: string) => string } = {}): Promise<TestApp> {
+export async function createTestApp(options: { signInLimitPerMinute?: number; clientDir?: string; baseURL?: string; logger?: Logger; trustProxy?: string | number | boolean; connectVia?: (url: string) => string; now?: () => Date } = {}): Promise<TestApp> {
   const { db, url, drop } = await createTestDb(options.connectVia);
   const standin = await startSearchStandin({ port: 0 });
   const baseURL = options.baseURL ?? TEST_ORIGIN;
@@ -53,6 +53,7 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
     trustProxy: options.trustProxy,
     trustedOrigins,
     clientDir: options.clientDir ? path.resolve(options.clientDir) : undefined,
+    now: options.now,
   };
   const app = createApp(appOptions);
   const services = createServices(appOptions);

@@ -3,3 +3,4 @@ export * from './companies.ts';
 export * from './catalogue.ts';
 export * from './stock.ts';
 export * from './plans.ts';
+export * from './jobs.ts';

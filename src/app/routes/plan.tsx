@@ -7,6 +7,7 @@ import { formatProseDate } from '@/lib/format.ts';
 import { useRanges } from '@/features/catalogue/api/get-ranges.ts';
 import { partQueryOptions } from '@/features/catalogue/api/get-part.ts';
 import { useSavedPlan } from '@/features/planner/api/get-saved-plan.ts';
+import { hasAbility, useMe } from '@/features/auth/api/get-me.ts';
 import { useInverters } from '@/features/planner/api/get-inverters.ts';
 import { fromServer } from '@/features/planner/lib/plan-view.ts';
 import { siteParams } from '@/features/planner/hooks/use-planner-params.ts';
@@ -34,6 +35,7 @@ function plannerSearch(request: Record<string, unknown>, rangeCode: string) {
 export function SavedPlanRoute() {
   const { id = '' } = useParams();
   const saved = useSavedPlan(id);
+  const { data: me } = useMe();
   const { data: inverters = [] } = useInverters();
   const { data: ranges = [] } = useRanges();
   const plan = saved.data?.plan;
@@ -77,6 +79,11 @@ export function SavedPlanRoute() {
           <Link to={paths.plans.href()} className="inline-flex items-center rounded-md border border-line bg-card px-3 py-1.5 text-sm font-medium hover:border-ink-soft">
             All saved plans
           </Link>
+          {hasAbility(me, 'jobs.create') && (
+            <Link to={paths.jobNew.href(s.id)} className="inline-flex items-center rounded-md border border-copper bg-copper px-3 py-1.5 text-sm font-medium text-white hover:bg-copper-dark">
+              Order this plan
+            </Link>
+          )}
           {rangeCode && (
             <Link to={paths.planner.href(plannerSearch(s.request, rangeCode))} className="inline-flex items-center rounded-md border border-line bg-card px-3 py-1.5 text-sm font-medium hover:border-ink-soft">
               Open in planner

@@ -1,0 +1,322 @@
+import { and, asc, desc, eq, gte, ilike, lt, sql, type SQL } from 'drizzle-orm';
+import type { Db, Tx } from '../db/client.ts';
+import { backorders, companies, jobLines, jobPlans, jobs, jobStatusHistory, parts, ranges, reservations, stackPlans, user, warehouses } from '../db/schema/index.ts';
+import { authorize, type Actor } from '../policies/actor.ts';
+import { assertCanSeeCompany, companyForNew, companyScopeOf, isCompanyBound } from '../policies/company-scope.ts';
+import { can } from '@shared/roles.ts';
+import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
+import type { CreateJobInput, JobListQuery, JobStatus } from '@shared/contracts/jobs.ts';
+import type { PlannerService } from './planner.ts';
+import { heldByLine, inStockTransaction, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
+import { assertReservable, reservationPlan, reserveInTx } from './reservations.ts';
+
+export interface JobDeps {
+  db: Db;
+  planner: Pick<PlannerService, 'replanSaved' | 'findPlan'>;
+  /** The clock, injected so quote expiry can be tested by moving time rather than waiting. */
+  now?: () => Date;
+  /** How long a quote (a draft's reservation) holds its units. */
+  quoteHoldDays?: number;
+}
+
+const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const BEFORE_PICKING: JobStatus[] = ['draft', 'ordered', 'reserved', 'part-reserved'];
+const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
+
+type JobRow = typeof jobs.$inferSelect;
+
+export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7 }: JobDeps) {
+  /** The job if the actor may see it; another company's job is "not found". */
+  async function visibleJob(actor: Actor, id: string, tx: Db | Tx = db): Promise<JobRow> {
+    if (!UUID_RE.test(id)) throw new NotFoundError('That job');
+    const [row] = await tx.select().from(jobs).where(eq(jobs.id, id));
+    if (!row) throw new NotFoundError('That job');
+    assertCanSeeCompany(actor, row.companyId, 'That job');
+    return row;
+  }
+
+  async function record(tx: Tx, jobId: string, status: JobStatus, userId: string | null, note: string | null = null) {
+    const at = now();
+    await tx.update(jobs).set({ status, updatedAt: at }).where(eq(jobs.id, jobId));
+    await tx.insert(jobStatusHistory).values({ jobId, status, userId, note, at });
+  }
+
+  /** The saved plans' BOM lines as they are today, ready to copy into the job. */
+  async function planLines(actor: Actor, jobId: string) {
+    const attached = await db.select({ planId: jobPlans.planId }).from(jobPlans).where(eq(jobPlans.jobId, jobId));
+    const out: { sku: string; qty: number; planId: string; reason: string }[] = [];
+    for (const { planId } of attached) {
+      const { plan } = await planner.replanSaved(actor, planId);
+      for (const l of plan.bom) if (l.qtyUnits > 0) out.push({ sku: l.sku, qty: l.qtyUnits, planId, reason: l.reason });
+    }
+    return out;
+  }
+
+  /** Copies the plans' lines in once (at ordering, or when a quote first holds stock). */
+  async function copyPlanLines(tx: Tx, job: JobRow, lines: { sku: string; qty: number; planId: string; reason: string }[]) {
+    if (job.linesCopiedAt) return;
+    const found = await partsBySku(tx, lines.map((l) => l.sku));
+    const [last] = await tx.select({ n: sql<number>`coalesce(max(${jobLines.lineNo}), 0)::int` }).from(jobLines).where(eq(jobLines.jobId, job.id));
+    let lineNo = last?.n ?? 0;
+    if (lines.length)
+      await tx.insert(jobLines).values(lines.map((l) => ({ jobId: job.id, lineNo: ++lineNo, partId: found.get(l.sku)!.id, qty: l.qty, planId: l.planId, reason: l.reason, unitPriceCents: found.get(l.sku)!.listPriceCents })));
+    await tx.update(jobs).set({ linesCopiedAt: now() }).where(eq(jobs.id, job.id));
+  }
+
+  async function detail(actor: Actor, id: string) {
+    authorize(actor, 'jobs.view');
+    if (!UUID_RE.test(id)) throw new NotFoundError('That job');
+    // The job with its company and preferred warehouse in one round trip; the rest in parallel.
+    const [head] = await db
+      .select({ job: jobs, company: { id: companies.id, name: companies.name }, preferredCode: warehouses.code, preferredName: warehouses.name })
+      .from(jobs)
+      .innerJoin(companies, eq(companies.id, jobs.companyId))
+      .leftJoin(warehouses, eq(warehouses.id, jobs.preferredWarehouseId))
+      .where(eq(jobs.id, id));
+    if (!head) throw new NotFoundError('That job');
+    assertCanSeeCompany(actor, head.job.companyId, 'That job');
+    const { job, company } = head;
+    const preferred = head.preferredCode && head.preferredName ? { code: head.preferredCode, name: head.preferredName } : null;
+    const [plans, lines, held, queue, history] = await Promise.all([
+      db
+        .select({ id: stackPlans.id, name: stackPlans.name, rangeName: ranges.name, summary: stackPlans.summary })
+        .from(jobPlans)
+        .innerJoin(stackPlans, eq(stackPlans.id, jobPlans.planId))
+        .innerJoin(ranges, eq(ranges.id, stackPlans.rangeId))
+        .where(eq(jobPlans.jobId, id))
+        .orderBy(asc(stackPlans.name)),
+      db
+        .select({
+          id: jobLines.id,
+          lineNo: jobLines.lineNo,
+          sku: parts.sku,
+          name: parts.name,
+          qty: jobLines.qty,
+          planId: jobLines.planId,
+          planName: stackPlans.name,
+          reason: jobLines.reason,
+          unitPriceCents: jobLines.unitPriceCents,
+          reserved: sql<number>`coalesce((select sum(r.qty) from reservations r where r.job_line_id = "job_lines"."id"), 0)::int`,
+          backordered: sql<number>`coalesce((select b.qty from backorders b where b.job_line_id = "job_lines"."id"), 0)::int`,
+          available: sql<number>`coalesce((select sum(l.on_hand - l.reserved) from stock_levels l where l.part_id = "job_lines"."part_id"), 0)::int`,
+        })
+        .from(jobLines)
+        .innerJoin(parts, eq(parts.id, jobLines.partId))
+        .leftJoin(stackPlans, eq(stackPlans.id, jobLines.planId))
+        .where(eq(jobLines.jobId, id))
+        .orderBy(asc(jobLines.lineNo)),
+      db
+        .select({ sku: parts.sku, warehouse: warehouses.code, bin: reservations.bin, qty: reservations.qty, needsTransfer: reservations.needsTransfer, expiresAt: reservations.expiresAt })
+        .from(reservations)
+        .innerJoin(jobLines, eq(jobLines.id, reservations.jobLineId))
+        .innerJoin(parts, eq(parts.id, reservations.partId))
+        .innerJoin(warehouses, eq(warehouses.id, reservations.warehouseId))
+        .where(eq(jobLines.jobId, id))
+        .orderBy(asc(jobLines.lineNo), asc(warehouses.rank), asc(reservations.bin)),
+      db
+        .select({
+          sku: parts.sku,
+          qty: backorders.qty,
+          since: backorders.createdAt,
+          position: sql<number>`(select count(*) + 1 from backorders o where o.part_id = ${backorders.partId} and (o.created_at, o.id) < (${backorders.createdAt}, ${backorders.id}))::int`,
+          unitsAhead: sql<number>`(select coalesce(sum(o.qty), 0) from backorders o where o.part_id = ${backorders.partId} and (o.created_at, o.id) < (${backorders.createdAt}, ${backorders.id}))::int`,
+        })
+        .from(backorders)
+        .innerJoin(jobLines, eq(jobLines.id, backorders.jobLineId))
+        .innerJoin(parts, eq(parts.id, backorders.partId))
+        .where(eq(jobLines.jobId, id))
+        .orderBy(asc(jobLines.lineNo)),
+      db
+        .select({ status: jobStatusHistory.status, at: jobStatusHistory.at, by: user.name, note: jobStatusHistory.note })
+        .from(jobStatusHistory)
+        .leftJoin(user, eq(user.id, jobStatusHistory.userId))
+        .where(eq(jobStatusHistory.jobId, id))
+        .orderBy(asc(jobStatusHistory.at), asc(jobStatusHistory.id)),
+    ]);
+    const holding = held.length > 0;
+    const fullyHeld = lines.length > 0 && lines.every((l) => l.reserved >= l.qty);
+    const abilities = {
+      order: can(actor.role, 'jobs.create') && job.status === 'draft' && (lines.length > 0 || plans.length > 0),
+      reserve: can(actor.role, 'jobs.reserve') && ['draft', 'ordered', 'part-reserved'].includes(job.status) && !fullyHeld && (lines.length > 0 || plans.length > 0),
+      release: can(actor.role, 'jobs.reserve') && BEFORE_PICKING.includes(job.status) && (holding || queue.length > 0),
+      cancel: can(actor.role, 'jobs.cancel') && BEFORE_PICKING.includes(job.status),
+    };
+    const holdExpiresAt = held.reduce<Date | null>((min, r) => (r.expiresAt && (!min || r.expiresAt < min) ? r.expiresAt : min), null);
+    return { job, company, preferred, plans, lines, held, queue, history, abilities, holdExpiresAt };
+  }
+
+  /** Shared by reserve (as a quote on a draft) and order: the plans' lines are copied in first. */
+  async function materialise(actor: Actor, job: JobRow) {
+    if (job.linesCopiedAt) return;
+    const lines = await planLines(actor, job.id);
+    await db.transaction(async (tx) => {
+      const [locked] = await tx.select().from(jobs).where(eq(jobs.id, job.id)).for('update');
+      await copyPlanLines(tx, locked!, lines);
+    });
+  }
+
+  /** One transaction per job, retried on deadlock or serialization failure; the last check is the database's. */
+  async function reserveJob(actor: Actor, jobId: string, firmUpOnly = false) {
+    const plan = await reservationPlan(db, jobId);
+    if (plan.lines.length === 0) throw new ConflictError('This job has no lines to reserve.');
+    return inStockTransaction(db, (tx) => reserveInTx(tx, jobId, plan, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly }));
+  }
+
+  return {
+    detail,
+
+    async create(actor: Actor, input: CreateJobInput) {
+      authorize(actor, 'jobs.create');
+      const companyId = companyForNew(actor, input.companyId);
+      if (!companyId) throw new ValidationError('Choose the customer account this job is for.', { fields: [{ path: 'companyId', message: 'Choose a customer account.' }] });
+      if (!isCompanyBound(actor)) {
+        const [c] = await db.select().from(companies).where(and(eq(companies.id, companyId), eq(companies.kind, 'installer')));
+        if (!c) throw new ValidationError('There is no such customer account.', { fields: [{ path: 'companyId', message: 'Unknown customer account.' }] });
+      }
+      const wh = input.preferredWarehouse ? await warehouseByCode(db, input.preferredWarehouse, 'preferredWarehouse') : null;
+      const planIds = [...new Set(input.planIds ?? [])];
+      for (const [i, planId] of planIds.entries()) {
+        const plan = await planner.findPlan(actor, planId);
+        if (plan.companyId !== companyId) throw new ValidationError(`Plan “${plan.name}” belongs to another customer account.`, { fields: [{ path: `planIds.${i}`, message: 'Another account’s plan.' }] });
+      }
+      const extra = input.lines ?? [];
+      const found = await partsBySku(db, extra.map((l) => l.sku), 'lines');
+      if (planIds.length === 0 && extra.length === 0) throw new ValidationError('A job needs a saved plan or at least one line.', { fields: [{ path: 'planIds', message: 'Add a plan or a line.' }] });
+      try {
+        const id = await db.transaction(async (tx) => {
+          const at = now();
+          const [row] = await tx
+            .insert(jobs)
+            .values({ companyId, reference: input.reference, siteSuburb: input.siteSuburb ?? null, sitePostcode: input.sitePostcode ?? null, contact: input.contact ?? null, notes: input.notes ?? null, preferredWarehouseId: wh?.id ?? null, createdBy: actor.userId, createdAt: at, updatedAt: at })
+            .returning({ id: jobs.id });
+          const jobId = row!.id;
+          if (planIds.length) await tx.insert(jobPlans).values(planIds.map((planId) => ({ jobId, planId })));
+          if (extra.length) await tx.insert(jobLines).values(extra.map((l, i) => ({ jobId, lineNo: i + 1, partId: found.get(l.sku)!.id, qty: l.qty, reason: 'Added by SKU', unitPriceCents: found.get(l.sku)!.listPriceCents })));
+          if (planIds.length === 0) await tx.update(jobs).set({ linesCopiedAt: at }).where(eq(jobs.id, jobId));
+          await tx.insert(jobStatusHistory).values({ jobId, status: 'draft', userId: actor.userId, at });
+          return jobId;
+        });
+        return detail(actor, id);
+      } catch (e) {
+        if (pgCode(e) === '23505') throw new ConflictError(`This account already has a job ${input.reference}.`, { fields: [{ path: 'reference', message: 'Already used for this account.' }] });
+        throw e;
+      }
+    },
+
+    async list(actor: Actor, q: JobListQuery) {
+      authorize(actor, 'jobs.view');
+      const where: SQL[] = [];
+      const scope = companyScopeOf(actor);
+      if (scope) where.push(eq(jobs.companyId, scope));
+      else if (q.companyId) where.push(eq(jobs.companyId, q.companyId));
+      if (q.status) where.push(eq(jobs.status, q.status));
+      if (q.q) where.push(ilike(jobs.reference, `%${q.q.replace(/[%_\\]/g, '\\$&')}%`));
+      if (q.from) where.push(gte(jobs.createdAt, new Date(`${q.from}T00:00:00Z`)));
+      if (q.to) where.push(lt(jobs.createdAt, new Date(new Date(`${q.to}T00:00:00Z`).getTime() + 86_400_000)));
+      const cond = where.length ? and(...where) : undefined;
+      const [rows, [count]] = await Promise.all([
+        db
+          .select({
+            id: jobs.id,
+            reference: jobs.reference,
+            status: jobs.status,
+            companyId: companies.id,
+            companyName: companies.name,
+            siteSuburb: jobs.siteSuburb,
+            sitePostcode: jobs.sitePostcode,
+            createdAt: jobs.createdAt,
+            updatedAt: jobs.updatedAt,
+            lines: sql<number>`(select count(*) from job_lines jl where jl.job_id = "jobs"."id")::int`,
+            units: sql<number>`(select coalesce(sum(jl.qty), 0) from job_lines jl where jl.job_id = "jobs"."id")::int`,
+            reserved: sql<number>`(select coalesce(sum(r.qty), 0) from reservations r join job_lines jl on jl.id = r.job_line_id where jl.job_id = "jobs"."id")::int`,
+            backordered: sql<number>`(select coalesce(sum(b.qty), 0) from backorders b join job_lines jl on jl.id = b.job_line_id where jl.job_id = "jobs"."id")::int`,
+          })
+          .from(jobs)
+          .innerJoin(companies, eq(companies.id, jobs.companyId))
+          .where(cond)
+          .orderBy(desc(jobs.createdAt), asc(jobs.reference))
+          .limit(q.pageSize)
+          .offset((q.page - 1) * q.pageSize),
+        db.select({ n: sql<number>`count(*)::int` }).from(jobs).where(cond),
+      ]);
+      return { rows, total: count?.n ?? 0 };
+    },
+
+    async order(actor: Actor, id: string) {
+      authorize(actor, 'jobs.create');
+      const job = await visibleJob(actor, id);
+      if (job.status !== 'draft') throw new ConflictError(`This job is already ${job.status}; only a draft can be ordered.`);
+      const lines = job.linesCopiedAt ? [] : await planLines(actor, job.id);
+      const hadHolds = await db.transaction(async (tx) => {
+        const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+        if (locked!.status !== 'draft') throw new ConflictError(`This job is already ${locked!.status}; only a draft can be ordered.`);
+        await copyPlanLines(tx, locked!, lines);
+        const { rows } = await heldByLine(tx, id);
+        if (rows.length === 0) throw new ConflictError('This job has no lines to order.');
+        await tx.update(jobs).set({ orderedAt: now() }).where(eq(jobs.id, id));
+        await record(tx, id, 'ordered', actor.userId);
+        return rows.some((r) => r.held > 0);
+      });
+      // Units a quote held become the order's: made firm (and topped up) in the reservation's own transaction.
+      if (hadHolds) await reserveJob(actor, id, true);
+      return detail(actor, id);
+    },
+
+    async reserve(actor: Actor, id: string) {
+      authorize(actor, 'jobs.reserve');
+      const job = await visibleJob(actor, id);
+      assertReservable(job.status);
+      if (job.status === 'draft') await materialise(actor, job);
+      await reserveJob(actor, id);
+      return detail(actor, id);
+    },
+
+    async release(actor: Actor, id: string) {
+      authorize(actor, 'jobs.reserve');
+      const job = await visibleJob(actor, id);
+      if (!BEFORE_PICKING.includes(job.status)) throw new ConflictError(`This job is ${job.status}; its stock can no longer be released here.`);
+      await inStockTransaction(db, async (tx) => {
+        const { units } = await releaseJobHolds(tx, id, { now: now() });
+        const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+        if (!BEFORE_PICKING.includes(locked!.status)) throw new ConflictError(`This job is ${locked!.status}; its stock can no longer be released here.`);
+        if (locked!.status === 'reserved' || locked!.status === 'part-reserved') await record(tx, id, 'ordered', actor.userId, `Released ${units} reserved units`);
+        else if (units > 0) await tx.insert(jobStatusHistory).values({ jobId: id, status: locked!.status, userId: actor.userId, note: `Released ${units} held units`, at: now() });
+      });
+      return detail(actor, id);
+    },
+
+    async cancel(actor: Actor, id: string) {
+      authorize(actor, 'jobs.cancel');
+      const job = await visibleJob(actor, id);
+      if (!BEFORE_PICKING.includes(job.status)) throw new ConflictError(`This job is ${job.status} and can no longer be cancelled.`);
+      await inStockTransaction(db, async (tx) => {
+        const { units } = await releaseJobHolds(tx, id, { now: now() });
+        const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+        if (!BEFORE_PICKING.includes(locked!.status)) throw new ConflictError(`This job is ${locked!.status} and can no longer be cancelled.`);
+        await record(tx, id, 'cancelled', actor.userId, units ? `Released ${units} reserved units` : null);
+      });
+      return detail(actor, id);
+    },
+
+    /** Releases quote holds that have lapsed by `at` (the scheduled job calls this). Returns the jobs touched. */
+    async expireQuoteHolds(at: Date = now()) {
+      const due = await db
+        .selectDistinct({ jobId: jobLines.jobId })
+        .from(reservations)
+        .innerJoin(jobLines, eq(jobLines.id, reservations.jobLineId))
+        .where(sql`${reservations.expiresAt} <= ${at}`);
+      let units = 0;
+      for (const { jobId } of due) {
+        units += await inStockTransaction(db, async (tx) => {
+          const { units: released } = await releaseJobHolds(tx, jobId, { onlyExpiredBy: at, now: at });
+          const [locked] = await tx.select().from(jobs).where(eq(jobs.id, jobId)).for('update');
+          if (released > 0) await tx.insert(jobStatusHistory).values({ jobId, status: locked!.status, userId: null, note: `Quote hold lapsed: ${released} units released`, at });
+          return released;
+        });
+      }
+      return { jobs: due.length, units };
+    },
+  };
+}
+
+export type JobService = ReturnType<typeof createJobService>;

@@ -1,0 +1,38 @@
+import { useMemo } from 'react';
+import type { ColumnDef } from '@tanstack/react-table';
+import type { StockLevel } from '@shared/contracts/stock.ts';
+import { DataTable } from '@/components/ui/data-table.tsx';
+
+/** Stock per part × warehouse × bin: on hand, reserved, available, on order. */
+export function LevelsTable({ levels, onOpen }: { levels: StockLevel[]; onOpen: (l: StockLevel) => void }) {
+  const columns = useMemo<ColumnDef<StockLevel>[]>(
+    () => [
+      { id: 'sku', accessorKey: 'sku', header: 'SKU', cell: (c) => <span className="num font-semibold">{c.row.original.sku}</span> },
+      { id: 'name', accessorKey: 'name', header: 'Part', meta: { className: 'min-w-48' } },
+      { id: 'warehouse', accessorKey: 'warehouse', header: 'Warehouse', cell: (c) => <span className="num">{c.row.original.warehouse}</span> },
+      {
+        id: 'bin',
+        accessorKey: 'bin',
+        header: 'Bin',
+        cell: (c) => (
+          <span className="num whitespace-nowrap">
+            {c.row.original.bin}
+            {c.row.original.isDefaultBin && <span title="Default bin"> ★</span>}
+          </span>
+        ),
+      },
+      { id: 'onHand', accessorKey: 'onHand', header: 'On hand', meta: { align: 'right' }, cell: (c) => <span className="num">{c.row.original.onHand}</span> },
+      { id: 'reserved', accessorKey: 'reserved', header: 'Reserved', meta: { align: 'right' }, cell: (c) => <span className="num">{c.row.original.reserved}</span> },
+      {
+        id: 'available',
+        accessorKey: 'available',
+        header: 'Available',
+        meta: { align: 'right' },
+        cell: (c) => (c.row.original.available > 0 ? <span className="num font-semibold text-teal">{c.row.original.available}</span> : <span className="num font-semibold text-danger">✕ 0</span>),
+      },
+      { id: 'onOrder', accessorKey: 'onOrder', header: 'On order', meta: { align: 'right' }, cell: (c) => <span className="num">{c.row.original.onOrder}</span> },
+    ],
+    [],
+  );
+  return <DataTable label="Stock levels" data={levels} columns={columns} getRowId={(l) => `${l.sku}|${l.warehouse}|${l.bin}`} onOpen={onOpen} dense empty="No stock matches." />;
+}
