@@ -4,67 +4,23 @@ import path from 'node:path';
 import express, { Router } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
-import type { Logger } from 'pino';
 import { toNodeHandler } from 'better-auth/node';
-import type { Db } from './db/client.ts';
-import { CLIENT_IP_HEADER, type Auth } from './auth.ts';
-import type { SearchClient } from './search/client.ts';
+import { CLIENT_IP_HEADER } from './auth.ts';
 import { Api } from './http/route.ts';
-import { createSessionCache, sessionMiddleware } from './middleware/session.ts';
+import { sessionMiddleware } from './middleware/session.ts';
 import { originCheck } from './middleware/origin-check.ts';
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts';
-import { createUserService, type UserService } from './services/users.ts';
-import { createCatalogueService, type CatalogueService } from './services/catalogue.ts';
-import { createMediaService, type MediaService } from './services/media.ts';
-import { createPartsIndex, type PartsIndex } from './search/parts-index.ts';
-import type { FileStore } from './storage/files.ts';
+import { NotFoundError } from './errors.ts';
 import { systemRoutes } from './routes/system.ts';
 import { userRoutes } from './routes/users.ts';
 import { partRoutes } from './routes/parts.ts';
 import { stackPlanRoutes } from './routes/stack-plans.ts';
-import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerService } from './services/planner.ts';
-import { createTtlCache } from './lib/ttl-cache.ts';
+import { createServices, type AppDeps, type AppOptions } from './deps.ts';
 
-export interface AppOptions {
-  db: Db;
-  auth: Auth;
-  search: SearchClient;
-  files: FileStore;
-  logger: Logger;
-  trustedOrigins: string[];
-  /** Express "trust proxy" setting: which hops may tell us the client's address. */
-  trustProxy?: string | number | boolean;
-  /** Built client to serve; omitted in API-only tests. */
-  clientDir?: string;
-}
+export { createServices, type AppDeps, type AppOptions };
 
-export interface AppDeps extends AppOptions {
-  sessionCache: ReturnType<typeof createSessionCache>;
-  users: UserService;
-  partsIndex: PartsIndex;
-  catalogue: CatalogueService;
-  media: MediaService;
-  planner: PlannerService;
-}
-
-/** Services built from the injected side effects; shared by the app, CLI tasks and benchmarks. */
-export function createServices(options: AppOptions): AppDeps {
-  const partsIndex = createPartsIndex(options.search);
-  const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
-  const sessionCache = createSessionCache();
-  return {
-    ...options,
-    partsIndex,
-    sessionCache,
-    users: createUserService({ ...options, onAccessChanged: sessionCache.clear }),
-    catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
-    media: createMediaService({ db: options.db, files: options.files }),
-    planner: createPlannerService({ db: options.db, rangeCache, onRangeChanged: (ids) => partsIndex.sync(options.db, [...new Set(ids)]) }),
-  };
-}
-
-export function createApp(options: AppOptions) {
-  const deps = createServices(options);
+/** The Express app. Pass `deps` to share services with the caller (tests arrange data through the app's own). */
+export function createApp(options: AppOptions, deps: AppDeps = createServices(options)) {
   const app = express();
   app.disable('x-powered-by');
   // Behind a load balancer set TRUST_PROXY (e.g. 1 or its address) so req.ip is the real client.
@@ -100,6 +56,9 @@ export function createApp(options: AppOptions) {
     if (req.method !== 'GET' && !req.path.startsWith('/sign-in')) deps.sessionCache.clear();
     next();
   });
+  // The library's own admin routes would bypass the company rules: /api/admin/users (services/users.ts)
+  // calls the same admin API in-process with those rules, so over HTTP they do not exist.
+  app.all(['/api/auth/admin', '/api/auth/admin/{*any}'], (_req, _res, next) => next(new NotFoundError('That page')));
   app.all('/api/auth/{*any}', toNodeHandler(options.auth));
   app.use('/api/auth', errorHandler);
 

@@ -4,7 +4,7 @@ import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attri
 import { sendCsv } from '../http/csv.ts';
 import type { Response } from 'express';
 import type { Api } from '../http/route.ts';
-import type { AppDeps } from '../app.ts';
+import type { AppDeps } from '../deps.ts';
 import { renderPlanPdf } from '../documents/plan-pdf.ts';
 import { presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.ts';
 
@@ -37,7 +37,7 @@ async function sendPlanPdf(res: Response, plan: StackPlanResult, title: string, 
 
 const fileStem = (s: string) => s.replace(/[^\w-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'stack-plan';
 
-export function stackPlanRoutes(api: Api, { planner }: AppDeps) {
+export function stackPlanRoutes(api: Api, { planner }: Pick<AppDeps, 'planner'>) {
   api.route({ method: 'post', path: '/stack-plans', summary: 'Plan a stack: figures, cautions and a BOM with availability', tag: 'planner', body: StackPlanRequestSchema, response: z.object({ data: StackPlanSchema }) }, async ({ actor, body }) => ({
     data: await planner.plan(actor, body),
   }));
