@@ -4,7 +4,7 @@ import type { ColumnDef } from '@tanstack/react-table';
 import type { SavedPlan } from '@shared/contracts/stack-plans.ts';
 import { DataTable } from '@/components/ui/data-table.tsx';
 import { paths } from '@/config/paths.ts';
-import { formatNumber } from '@/lib/format.ts';
+import { formatDate, formatNumber } from '@/lib/format.ts';
 
 /** Draft plans, newest first; a row opens the plan recomputed with today's stock. */
 export function SavedPlansTable({ plans, onOpen, showCustomer }: { plans: SavedPlan[]; onOpen: (p: SavedPlan) => void; showCustomer: boolean }) {
@@ -55,7 +55,7 @@ export function SavedPlansTable({ plans, onOpen, showCustomer }: { plans: SavedP
         ),
       },
       { id: 'by', accessorKey: 'createdBy', header: 'Planned by' },
-      { id: 'created', accessorKey: 'createdAt', header: 'Saved', cell: (c) => <span className="num whitespace-nowrap">{c.row.original.createdAt.slice(0, 10)}</span> },
+      { id: 'created', accessorKey: 'createdAt', header: 'Saved', cell: (c) => <span className="num whitespace-nowrap">{formatDate(c.row.original.createdAt)}</span> },
     ],
     [showCustomer],
   );
