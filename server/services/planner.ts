@@ -112,17 +112,17 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
 
   /** Available (on hand − reserved) per SKU and warehouse. */
   async function availability(skus: string[]) {
-    if (skus.length === 0) return new Map<string, { warehouse: string; available: number }[]>();
+    if (skus.length === 0) return new Map<string, { warehouse: string; warehouseName: string; available: number }[]>();
     const rows = await db
-      .select({ sku: parts.sku, warehouse: warehouses.code, available: sql<number>`sum(${stockLevels.onHand} - ${stockLevels.reserved})::int` })
+      .select({ sku: parts.sku, warehouse: warehouses.code, warehouseName: warehouses.name, available: sql<number>`sum(${stockLevels.onHand} - ${stockLevels.reserved})::int` })
       .from(stockLevels)
       .innerJoin(parts, eq(parts.id, stockLevels.partId))
       .innerJoin(warehouses, eq(warehouses.id, stockLevels.warehouseId))
       .where(inArray(parts.sku, skus))
-      .groupBy(parts.sku, warehouses.code, warehouses.rank)
+      .groupBy(parts.sku, warehouses.code, warehouses.name, warehouses.rank)
       .orderBy(asc(warehouses.rank));
-    const out = new Map<string, { warehouse: string; available: number }[]>();
-    for (const r of rows) out.set(r.sku, [...(out.get(r.sku) ?? []), { warehouse: r.warehouse, available: r.available }]);
+    const out = new Map<string, { warehouse: string; warehouseName: string; available: number }[]>();
+    for (const r of rows) out.set(r.sku, [...(out.get(r.sku) ?? []), { warehouse: r.warehouse, warehouseName: r.warehouseName, available: r.available }]);
     return out;
   }
 

@@ -30,7 +30,7 @@ export const PlanBomLineSchema = z.object({
   reason: z.string(),
   rules: z.array(z.string()),
   available: z.number(),
-  availability: z.array(z.object({ warehouse: z.string(), available: z.number() })),
+  availability: z.array(z.object({ warehouse: z.string(), warehouseName: z.string(), available: z.number() })),
   short: z.number(),
 });
 export type PlanBomLine = z.infer<typeof PlanBomLineSchema>;

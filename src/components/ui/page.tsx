@@ -6,13 +6,13 @@ export function Page({ title, actions, children, subtitle }: { title: string; su
     document.title = `${title} · Stackyard`;
   }, [title]);
   return (
-    <div className="mx-auto max-w-7xl px-6 py-5">
+    <div className="mx-auto max-w-7xl px-4 py-4 sm:px-6 sm:py-5">
       <header className="mb-4 flex flex-wrap items-end justify-between gap-3 border-b border-line pb-3">
         <div>
           <h1 className="text-xl font-semibold tracking-tight">{title}</h1>
           {subtitle && <p className="mt-0.5 text-sm text-ink-soft">{subtitle}</p>}
         </div>
-        {actions && <div className="flex gap-2">{actions}</div>}
+        {actions && <div className="flex flex-wrap gap-2">{actions}</div>}
       </header>
       {children}
     </div>

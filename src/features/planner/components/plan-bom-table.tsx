@@ -5,9 +5,11 @@ import { DataTable, type ColumnMeta } from '@/components/ui/data-table.tsx';
 import { StatusTag } from '@/components/ui/notice.tsx';
 import { formatNumber } from '@/lib/format.ts';
 import { warehousesOf, type ShownLine, type ShownPlan } from '../lib/plan-view.ts';
-import { SkuLink } from '@/features/catalogue/components/sku-link.tsx';
+import { SkuLink } from '@/components/ui/sku-link.tsx';
 
 const right: ColumnMeta = { align: 'right' };
+/** On a phone the BOM keeps SKU, part, quantity and availability; packs, reasons and depots need the width. */
+const PHONE_HIDDEN = 'max-sm:hidden';
 
 export function StockStatus({ line }: { line: ShownLine }) {
   if (!line.stock) return <span className="text-xs text-ink-soft">checking…</span>;
@@ -20,9 +22,13 @@ export function StockStatus({ line }: { line: ShownLine }) {
 
 /** The bill of materials: what to order, how it is packed, why each line is there, and whether stock covers it. */
 export function PlanBomTable({ plan }: { plan: ShownPlan }) {
-  const warehouseKey = warehousesOf(plan).join('|');
+  // Codes head the columns (they fit a phone); the full name is each header's accessible name.
+  const names = new Map(plan.bom.flatMap((l) => l.stock?.availability ?? []).map((a) => [a.warehouse, a.warehouseName]));
+  const warehouseKey = warehousesOf(plan)
+    .map((code) => `${code}\t${names.get(code) ?? code}`)
+    .join('|');
   const columns = useMemo<ColumnDef<ShownLine>[]>(() => {
-    const warehouses = warehouseKey ? warehouseKey.split('|') : [];
+    const warehouses = warehouseKey ? warehouseKey.split('|').map((w) => w.split('\t') as [string, string]) : [];
     return [
       {
         id: 'sku',
@@ -34,7 +40,7 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         id: 'name',
         accessorKey: 'name',
         header: 'Part',
-        meta: { className: 'min-w-40' },
+        meta: { className: 'sm:min-w-40' },
         cell: (c) => (
           <span>
             {c.row.original.name}
@@ -47,19 +53,24 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         id: 'packs',
         header: 'Packs × size',
         enableSorting: false,
-        meta: right,
+        meta: { ...right, className: PHONE_HIDDEN },
         cell: (c) => (
           <span className="num whitespace-nowrap">
             {formatNumber(c.row.original.packs)} × {formatNumber(c.row.original.packSize)}
           </span>
         ),
       },
-      { id: 'why', accessorKey: 'reason', header: 'Why', enableSorting: false, meta: { className: 'min-w-48 text-ink-soft' }, cell: (c) => <span className="text-xs leading-snug">{c.row.original.reason}</span> },
-      ...warehouses.map<ColumnDef<ShownLine>>((wh) => ({
+      { id: 'why', accessorKey: 'reason', header: 'Why', enableSorting: false, meta: { className: `min-w-48 text-ink-soft ${PHONE_HIDDEN}` }, cell: (c) => <span className="text-xs leading-snug">{c.row.original.reason}</span> },
+      ...warehouses.map<ColumnDef<ShownLine>>(([wh, name]) => ({
         id: `wh-${wh}`,
-        header: wh,
+        header: () => (
+          <span title={name}>
+            <span aria-hidden="true">{wh}</span>
+            <span className="sr-only">{name}</span>
+          </span>
+        ),
         enableSorting: false,
-        meta: right,
+        meta: { ...right, className: PHONE_HIDDEN },
         cell: (c) => {
           const a = c.row.original.stock?.availability.find((x) => x.warehouse === wh);
           return <span className="num text-ink-soft">{a ? formatNumber(a.available) : '0'}</span>;
