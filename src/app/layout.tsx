@@ -1,5 +1,5 @@
 import { Navigate, NavLink, Outlet, useLocation, useNavigate } from 'react-router';
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { ROLE_LABELS } from '@shared/roles.ts';
 import { NAV } from '@/config/nav.ts';
 import { paths } from '@/config/paths.ts';
@@ -21,6 +21,27 @@ export function AppLayout() {
   const [navOpen, setNavOpen] = useState(false);
   const shortcut = useSearchShortcut();
   const navId = useId();
+  const userButton = useRef<HTMLButtonElement>(null);
+
+  // The user menu closes on Escape (focus back on its button) or on a click outside it.
+  const userMenu = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!menuOpen) return;
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== 'Escape') return;
+      setMenuOpen(false);
+      userButton.current?.focus();
+    };
+    const onPointer = (e: PointerEvent) => {
+      if (!userMenu.current?.contains(e.target as Node) && !userButton.current?.contains(e.target as Node)) setMenuOpen(false);
+    };
+    document.addEventListener('keydown', onKey);
+    document.addEventListener('pointerdown', onPointer);
+    return () => {
+      document.removeEventListener('keydown', onKey);
+      document.removeEventListener('pointerdown', onPointer);
+    };
+  }, [menuOpen]);
 
   // Moving to another page closes the phone menu.
   useEffect(() => setNavOpen(false), [location.pathname]);
@@ -89,6 +110,7 @@ export function AppLayout() {
           {me && (
             <div className="relative border-t border-paper/15 p-2">
               <button
+                ref={userButton}
                 type="button"
                 aria-expanded={menuOpen}
                 onClick={() => setMenuOpen((o) => !o)}
@@ -98,7 +120,7 @@ export function AppLayout() {
                 <span className="block truncate text-xs text-paper/70">{me.company?.name ?? me.user.email}</span>
               </button>
               {menuOpen && (
-                <div className="on-light absolute bottom-full left-2 right-2 z-20 mb-1 rounded-md border border-line bg-card py-1 text-ink shadow-lg">
+                <div ref={userMenu} className="on-light absolute bottom-full left-2 right-2 z-20 mb-1 rounded-md border border-line bg-card py-1 text-ink shadow-lg">
                   <p className="break-all px-3 py-1 text-xs text-ink-soft">{me.user.email}</p>
                   {canSearch && (
                     <label className="block px-3 py-1.5 text-sm">

@@ -75,13 +75,14 @@ describe('catalogue search (trade desk)', () => {
     await page.goForward();
     await expect.poll(() => resultCount(page)).toBe(facetCount);
 
-    // "/" focuses the search box from anywhere, ArrowDown enters the results, Enter opens the row.
+    // "/" focuses the search box from anywhere, ArrowDown enters the results (the second row's
+    // SKU link after two presses), Enter follows the link.
     await page.getByRole('heading', { level: 1 }).click();
     await page.keyboard.press('/');
     expect(await search.evaluate((el) => el === document.activeElement)).toBe(true);
     await page.keyboard.press('ArrowDown');
     await page.keyboard.press('ArrowDown');
-    const focusedSku = await page.evaluate(() => document.activeElement?.querySelector('td:nth-child(2)')?.textContent ?? null);
+    const focusedSku = await page.evaluate(() => (document.activeElement?.matches('tbody tr:nth-child(2) a[data-row-action]') ? document.activeElement.textContent : null));
     expect(focusedSku).toMatch(/^[A-Z0-9]/);
     await page.keyboard.press('Enter');
     await page.waitForURL(new RegExp(`/catalogue/${focusedSku}$`));

@@ -104,7 +104,7 @@ export function DataTable<T>({ data, columns, getRowId, empty = 'Nothing here ye
               {hg.headers.map((h) => {
                 const sorted = h.column.getIsSorted() || (shownSorting[0]?.id === h.column.id ? (shownSorting[0].desc ? 'desc' : 'asc') : false);
                 return (
-                  <th key={h.id} scope="col" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined} className={`border-b border-line ${dense ? 'px-2' : 'px-3'} py-2 text-xs font-semibold uppercase tracking-wide text-ink-soft ${metaClass(h.column.columnDef.meta)}`}>
+                  <th key={h.id} scope="col" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined} className={`border-b border-line ${dense ? 'px-2' : 'px-2 sm:px-3'} py-2 text-xs font-semibold uppercase tracking-wide text-ink-soft ${metaClass(h.column.columnDef.meta)}`}>
                     {h.column.getCanSort() ? (
                       <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-ink">
                         {flexRender(h.column.columnDef.header, h.getContext())}
@@ -123,7 +123,7 @@ export function DataTable<T>({ data, columns, getRowId, empty = 'Nothing here ye
           {table.getRowModel().rows.map((row) => (
             <tr key={row.id} onClick={onRowClick} className="border-b border-line/70 last:border-0 has-[[data-row-action]]:cursor-pointer hover:bg-paper focus-within:bg-amber-soft">
               {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className={`${dense ? 'px-2 py-1' : 'px-3 py-1.5'} ${cellAlign === 'middle' ? 'align-middle' : 'align-top'} ${metaClass(cell.column.columnDef.meta)}`}>
+                <td key={cell.id} className={`${dense ? 'px-2 py-1' : 'px-2 py-1.5 sm:px-3'} ${cellAlign === 'middle' ? 'align-middle' : 'align-top'} ${metaClass(cell.column.columnDef.meta)}`}>
                   {flexRender(cell.column.columnDef.cell, cell.getContext())}
                 </td>
               ))}

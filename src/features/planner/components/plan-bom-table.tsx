@@ -34,6 +34,7 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         id: 'sku',
         accessorKey: 'sku',
         header: 'SKU',
+        meta: { className: PHONE_HIDDEN },
         cell: (c) => <SkuLink sku={c.row.original.sku} />,
       },
       {
@@ -43,12 +44,24 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         meta: { className: 'sm:min-w-40' },
         cell: (c) => (
           <span>
+            {/* On a phone the SKU heads the part's cell instead of taking a column. */}
+            <SkuLink sku={c.row.original.sku} className="block text-xs sm:hidden" />
             {c.row.original.name}
             <span className="block text-xs text-ink-soft">{CATEGORY_LABELS[c.row.original.category as CategoryCode] ?? c.row.original.category}</span>
           </span>
         ),
       },
-      { id: 'qty', accessorKey: 'qtyUnits', header: 'Qty (units)', meta: right, cell: (c) => <span className="num">{formatNumber(c.row.original.qtyUnits)}</span> },
+      {
+        id: 'qty',
+        accessorKey: 'qtyUnits',
+        header: () => (
+          <span>
+            Qty<span className="max-sm:hidden"> (units)</span>
+          </span>
+        ),
+        meta: right,
+        cell: (c) => <span className="num">{formatNumber(c.row.original.qtyUnits)}</span>,
+      },
       {
         id: 'packs',
         header: 'Packs × size',
@@ -78,12 +91,17 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
       })),
       {
         id: 'available',
-        header: 'Available',
+        header: () => (
+          <>
+            <span className="sm:hidden">Stock</span>
+            <span className="max-sm:hidden">Available</span>
+          </>
+        ),
         enableSorting: false,
         meta: right,
         cell: (c) => (
-          <span className="inline-flex items-center gap-2">
-            {c.row.original.stock && <span className="num">{formatNumber(c.row.original.stock.available)}</span>}
+          <span className="inline-flex flex-wrap items-center justify-end gap-x-2 gap-y-0.5">
+            {c.row.original.stock && <span className="num max-sm:hidden">{formatNumber(c.row.original.stock.available)}</span>}
             <StockStatus line={c.row.original} />
           </span>
         ),
