@@ -38,7 +38,8 @@ const subscribe = (l: () => void) => {
 
 export const useSearchShortcut = () => useSyncExternalStore(subscribe, snapshot, () => '/' as SearchShortcut);
 
-const isTyping = (el: Element | null) => !!el && (el.matches('input, textarea, select, [contenteditable=""], [contenteditable="true"]') || (el as HTMLElement).isContentEditable);
+/** Is focus in a field that takes typing (or a checkbox, select or editable area)? */
+export const isTyping = (el: Element | null) => !!el && (el.matches('input, textarea, select, [contenteditable=""], [contenteditable="true"]') || (el as HTMLElement).isContentEditable);
 
 /** Does this key press ask for the search box, under the chosen shortcut? Never while typing in a field. */
 export function isSearchShortcut(e: KeyboardEvent, shortcut: SearchShortcut = snapshot()) {

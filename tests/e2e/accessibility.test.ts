@@ -288,3 +288,58 @@ describe('at 390 × 844 (a phone)', () => {
     expect(await nav.getByRole('link', { name: 'Catalogue' }).isVisible()).toBe(false);
   });
 });
+
+describe('the frame and the user forms', () => {
+  it('draws the frame at once while the session check is slow', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'sales@stackyard.test');
+    let release: () => void = () => {};
+    const held = new Promise<void>((r) => (release = r));
+    await page.route('**/api/me', async (route) => {
+      await held;
+      await route.continue();
+    });
+    await page.goto('/plans');
+    // The navigation and a note show while /api/me is still on its way.
+    await page.getByRole('navigation', { name: 'Main' }).waitFor();
+    await page.getByText('Checking your sign-in…').waitFor();
+    release();
+    await waitForText(page.getByRole('heading', { level: 1 }), /^Saved plans$/);
+  });
+
+  it('picks the wholesaler for a staff role and offers only customer companies to an installer', async () => {
+    const page = await h.newPage();
+    await signInAs(page, 'admin@stackyard.test');
+    await settled(page, '/admin/users', /^Users$/);
+    await page.getByRole('button', { name: 'New user' }).click();
+    const form = page.getByRole('form', { name: 'New user' });
+    // Cancel sits beside the main button, styled as the secondary action.
+    expect(await form.getByRole('button', { name: 'Cancel' }).getAttribute('class')).toContain('bg-card');
+    expect(await form.getByRole('button', { name: 'Create user' }).getAttribute('class')).toContain('bg-copper');
+
+    const company = form.getByLabel('Company');
+    const options = () => company.locator('option:not([disabled])').allTextContents();
+    expect(await options()).toEqual(['Brightgum Electrical', 'Saltbush Home Energy', 'Southerly Solar & Storage']);
+    await form.getByLabel('Role').selectOption('sales');
+    expect(await company.inputValue()).toBe('Lowtide Battery Wholesale');
+    expect(await company.getAttribute('readonly')).not.toBeNull();
+
+    await form.getByLabel('Name').fill('Noor Haddad');
+    await form.getByLabel('E-mail').fill('noor@stackyard.test');
+    await form.getByLabel('First password').fill('a-good-password');
+    await form.getByRole('button', { name: 'Create user' }).click();
+    await page.getByText('Noor Haddad can now sign in as noor@stackyard.test.').waitFor();
+
+    // Editing: moving that user to the installer role asks for a customer company.
+    await page.getByRole('table', { name: 'Users' }).getByRole('button', { name: 'Noor Haddad' }).click();
+    const access = page.getByRole('form', { name: 'Role and company' });
+    await access.getByLabel('Role').selectOption('installer');
+    await access.getByRole('button', { name: 'Save' }).click();
+    await waitForText(access.getByRole('alert').first(), /customer company/);
+    await access.getByLabel('Company').selectOption({ label: 'Saltbush Home Energy' });
+    await access.getByRole('button', { name: 'Save' }).click();
+    await page.getByText('Role and company saved.').waitFor();
+    const row = page.getByRole('table', { name: 'Users' }).getByRole('row').filter({ hasText: 'Noor Haddad' });
+    await waitForText(row, /Installer.*Saltbush Home Energy/);
+  });
+});

@@ -48,6 +48,8 @@ export function AdminUsersRoute() {
             className="text-left font-semibold hover:text-copper hover:underline"
           >
             {c.row.original.name}
+            {/* A phone has no status column: a deactivated user says so under the name. */}
+            {!c.row.original.active && <span className="block text-xs font-normal text-danger sm:hidden">Deactivated</span>}
           </button>
         ),
       },
@@ -57,6 +59,7 @@ export function AdminUsersRoute() {
       {
         accessorKey: 'active',
         header: 'Status',
+        meta: { className: 'max-sm:hidden' },
         cell: (c) => (c.getValue<boolean>() ? <StatusTag tone="good">Active</StatusTag> : <StatusTag tone="danger">Deactivated</StatusTag>),
       },
       { accessorKey: 'createdAt', header: 'Since', meta: { className: 'max-sm:hidden' }, cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue<string>())}</span> },

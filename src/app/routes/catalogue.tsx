@@ -10,7 +10,7 @@ import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
 import { hasAbility, useMe } from '@/features/auth/api/get-me.ts';
 import { formatNumber } from '@/lib/format.ts';
-import { CATALOGUE_SEARCH_ID, SHORTCUT_LABELS, useSearchShortcut } from '@/lib/search-shortcut.ts';
+import { CATALOGUE_SEARCH_ID, isTyping, SHORTCUT_LABELS, useSearchShortcut } from '@/lib/search-shortcut.ts';
 import { partsExportHref, partsQueryOptions, useParts, type PartFilters } from '@/features/catalogue/api/get-parts.ts';
 import { useMakers } from '@/features/catalogue/api/get-makers.ts';
 import { useRanges } from '@/features/catalogue/api/get-ranges.ts';
@@ -69,6 +69,19 @@ export function CatalogueRoute() {
     if (arrivedByShortcut) search.current?.focus();
   }, [arrivedByShortcut]);
   const shortcut = useSearchShortcut();
+  // Typing while focus is not in a field goes into the search box, so a scanner works the moment
+  // the page opens. That is a single-key shortcut too, so it follows the same setting (only
+  // with "/"; WCAG 2.1.4).
+  useEffect(() => {
+    if (shortcut !== '/') return;
+    const onKey = (e: globalThis.KeyboardEvent) => {
+      if (isTyping(document.activeElement) || e.key.length !== 1 || e.key === '/' || e.key === ' ' || e.ctrlKey || e.metaKey || e.altKey) return;
+      // Focus moves before the key is handled, so the character lands in the box.
+      search.current?.focus();
+    };
+    document.addEventListener('keydown', onKey);
+    return () => document.removeEventListener('keydown', onKey);
+  }, [shortcut]);
   const [filtersOpen, setFiltersOpen] = useState(false);
 
   const firstRow = () => results.current?.querySelector<HTMLElement>('tbody [data-row-action]');

@@ -17,12 +17,16 @@ export function SavedPlansTable({ plans, showCustomer }: { plans: SavedPlan[]; s
         accessorKey: 'name',
         header: 'Plan',
         cell: (c) => (
-          <Link to={paths.plan.href(c.row.original.id)} {...ROW_ACTION} className="font-semibold hover:text-copper hover:underline">
-            {c.row.original.name}
-          </Link>
+          <>
+            <Link to={paths.plan.href(c.row.original.id)} {...ROW_ACTION} className="font-semibold hover:text-copper hover:underline">
+              {c.row.original.name}
+            </Link>
+            {/* A phone has no room for the customer column: the customer rides with the plan. */}
+            {showCustomer && <span className="block text-xs text-ink-soft sm:hidden">{c.row.original.companyName}</span>}
+          </>
         ),
       },
-      ...(showCustomer ? [{ id: 'customer', accessorKey: 'companyName', header: 'Customer' } satisfies ColumnDef<SavedPlan>] : []),
+      ...(showCustomer ? [{ id: 'customer', accessorKey: 'companyName', header: 'Customer', meta: { className: 'max-sm:hidden' } } satisfies ColumnDef<SavedPlan>] : []),
       {
         id: 'site',
         header: 'Site',
