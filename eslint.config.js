@@ -2,6 +2,32 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
+import { readdirSync } from 'node:fs';
+
+/**
+ * Features never import one another (src/features/a → src/features/b): what two features share
+ * moves to src/components, src/lib or shared/, and pages (src/app/routes) compose features.
+ * One rule per feature folder, so a new feature is covered as soon as its folder exists.
+ */
+const features = readdirSync(new URL('./src/features', import.meta.url), { withFileTypes: true })
+  .filter((d) => d.isDirectory())
+  .map((d) => d.name);
+const noCrossFeatureImports = features.map((feature) => ({
+  files: [`src/features/${feature}/**/*.{ts,tsx}`],
+  rules: {
+    'no-restricted-imports': [
+      'error',
+      {
+        patterns: [
+          {
+            group: ['@/features/*', `!@/features/${feature}`, `!@/features/${feature}/**`, '../../*/**', `!../../${feature}/**`, '../../../*/**', `!../../../${feature}/**`],
+            message: `src/features/${feature} may not import another feature: move what both need to src/components, src/lib or shared/, or compose them in a page under src/app/routes.`,
+          },
+        ],
+      },
+    ],
+  },
+}));
 
 export default tseslint.config(
   { ignores: ['dist', 'node_modules', '.data', 'drizzle', 'test-results', 'bench-results'] },
@@ -39,4 +65,5 @@ export default tseslint.config(
       ],
     },
   },
+  ...noCrossFeatureImports,
 );

@@ -1,10 +1,10 @@
-// The demo catalogue, warehouses and opening stock, written from the plain data in seed/data/.
+// The demo catalogue, warehouses and opening stock, written from the plain data in seed/data/
+// through the same factories the tests use (seed/factories.ts).
 import { eq } from 'drizzle-orm';
 import type { Db, Tx } from '../server/db/client.ts';
-import { makers as makerTable, parts as partTable, partSupplierSkus, rangeInverters, ranges as rangeTable, stockLevels, stockMovements, suppliers, warehouses } from '../server/db/schema/index.ts';
-import { PartAttributesSchema } from '../shared/contracts/part-attributes.ts';
-import { BomRulesSchema } from '../shared/domain/bom-rules.ts';
-import { catalogueSuppliers, makers, parts, ranges } from './data/catalogue.ts';
+import { parts as partTable } from '../server/db/schema/index.ts';
+import { catalogueSuppliers, makers, parts as demoParts, ranges as demoRanges, type DemoPart, type DemoRange } from './data/catalogue.ts';
+import { makeMaker, makePart, makeRange, makeSupplier, makeWarehouse, receiveStock, type StockSpec } from './factories.ts';
 
 export const DEMO_WAREHOUSES = [
   { code: 'WST', name: 'Western depot', rank: 1 },
@@ -20,94 +20,37 @@ function sequence(seed: number) {
   };
 }
 
-export async function seedCatalogue(tx: Tx | Db) {
-  const makerIds = new Map<string, string>();
-  for (const m of makers) {
-    const [row] = await tx.insert(makerTable).values(m).returning();
-    makerIds.set(m.code, row!.id);
-  }
-  const supplierIds = new Map<string, string>();
-  for (const s of catalogueSuppliers) {
-    const [row] = await tx.insert(suppliers).values({ code: s.code, name: s.name }).returning();
-    supplierIds.set(s.code, row!.id);
-  }
+/**
+ * Seeds the demo catalogue, or the part of it a test names: `parts` (default all) and the
+ * `ranges` whose parts are all among them (default: every such range).
+ */
+export async function seedCatalogue(tx: Tx | Db, choice: { parts?: DemoPart[]; ranges?: DemoRange[] } = {}) {
+  const chosen = choice.parts ?? demoParts;
+  const skus = new Set(chosen.map((p) => p.sku));
+  const chosenRanges = (choice.ranges ?? demoRanges).filter((r) => [r.controllerSku, r.moduleSku, ...r.compatibleInverterSkus, ...r.rules.map((x) => x.sku)].every((s) => skus.has(s)));
+  for (const m of makers) await makeMaker(tx, m);
+  for (const s of catalogueSuppliers) await makeSupplier(tx, { code: s.code, name: s.name });
 
   const partIds = new Map<string, string>();
-  for (const p of parts) {
-    const [row] = await tx
-      .insert(partTable)
-      .values({
-        sku: p.sku,
-        name: p.name,
-        category: p.category,
-        makerId: makerIds.get(p.maker)!,
-        description: p.description,
-        gtin: p.gtin ?? null,
-        unit: p.unit,
-        packSize: p.packSize,
-        massKg: p.massKg,
-        widthMm: p.widthMm ?? null,
-        heightMm: p.heightMm ?? null,
-        depthMm: p.depthMm ?? null,
-        ipRating: p.ipRating ?? null,
-        lifecycle: 'active',
-        unNumber: p.dangerousGoods?.unNumber ?? null,
-        dgClass: p.dangerousGoods?.class ?? null,
-        whRating: p.dangerousGoods?.whRating ?? null,
-        costCents: p.costCents,
-        listPriceCents: p.listPriceCents,
-        attributes: PartAttributesSchema.parse(p.attributes),
-        compliance: p.compliance ?? null,
-      })
-      .returning({ id: partTable.id });
-    partIds.set(p.sku, row!.id);
-    if (p.supplierSkus?.length)
-      await tx.insert(partSupplierSkus).values(p.supplierSkus.map((s) => ({ partId: row!.id, supplierId: supplierIds.get(s.supplier)!, supplierSku: s.sku })));
-  }
   // Successors exist only once every part is in, so lifecycles are set afterwards.
-  for (const p of parts.filter((x) => x.lifecycle !== 'active')) {
-    await tx
-      .update(partTable)
-      .set({ lifecycle: p.lifecycle, supersededById: p.supersededBy ? partIds.get(p.supersededBy)! : null })
-      .where(eq(partTable.id, partIds.get(p.sku)!));
+  for (const p of chosen) partIds.set(p.sku, (await makePart(tx, { ...p, lifecycle: 'active', supersededBy: undefined })).id);
+  for (const p of chosen.filter((x) => x.lifecycle !== 'active')) {
+    const successor = p.supersededBy ? partIds.get(p.supersededBy) : undefined;
+    await tx.update(partTable).set({ lifecycle: p.lifecycle, supersededById: successor ?? null }).where(eq(partTable.id, partIds.get(p.sku)!));
   }
+  for (const r of chosenRanges) await makeRange(tx, r);
 
-  for (const r of ranges) {
-    const [row] = await tx
-      .insert(rangeTable)
-      .values({
-        code: r.code,
-        name: r.name,
-        makerId: makerIds.get(r.maker)!,
-        connection: r.connection,
-        controllerId: partIds.get(r.controllerSku)!,
-        moduleId: partIds.get(r.moduleSku)!,
-        minModules: r.minModules,
-        maxModules: r.maxModules,
-        maxStacks: r.maxStacks,
-        baseHeightMm: r.baseHeightMm,
-        defaultDodPct: r.defaultDodPct,
-        rules: BomRulesSchema.parse(r.rules),
-      })
-      .returning({ id: rangeTable.id });
-    if (r.compatibleInverterSkus.length)
-      await tx.insert(rangeInverters).values(r.compatibleInverterSkus.map((sku) => ({ rangeId: row!.id, inverterId: partIds.get(sku)! })));
-  }
-
-  await seedStock(tx, partIds);
-  return { parts: parts.length, ranges: ranges.length };
+  await seedStock(tx, chosen, partIds);
+  return { parts: chosen.length, ranges: chosenRanges.length };
 }
 
 /** Opening stock through the ledger (receive movements) with levels kept in step; some parts short. */
-async function seedStock(tx: Tx | Db, partIds: Map<string, string>) {
+async function seedStock(tx: Tx | Db, chosen: DemoPart[], partIds: Map<string, string>) {
   const random = sequence(20261202);
   const whIds: string[] = [];
-  for (const w of DEMO_WAREHOUSES) {
-    const [row] = await tx.insert(warehouses).values(w).returning({ id: warehouses.id });
-    whIds.push(row!.id);
-  }
-  const levels: (typeof stockLevels.$inferInsert)[] = [];
-  parts.forEach((p, i) => {
+  for (const w of DEMO_WAREHOUSES) whIds.push((await makeWarehouse(tx, w)).id);
+  const levels: StockSpec[] = [];
+  chosen.forEach((p, i) => {
     if (p.lifecycle === 'discontinued' && random() < 0.6) return;
     whIds.forEach((warehouseId, w) => {
       const roll = random();
@@ -118,9 +61,5 @@ async function seedStock(tx: Tx | Db, partIds: Map<string, string>) {
       levels.push({ partId: partIds.get(p.sku)!, warehouseId, bin: `${aisle}-${String((i % 20) + 1).padStart(2, '0')}-${w + 1}`, onHand });
     });
   });
-  for (let i = 0; i < levels.length; i += 500) {
-    const chunk = levels.slice(i, i + 500);
-    await tx.insert(stockLevels).values(chunk);
-    await tx.insert(stockMovements).values(chunk.map((l) => ({ partId: l.partId, warehouseId: l.warehouseId, bin: l.bin, qty: l.onHand!, kind: 'receive' as const, reason: 'Opening stock' })));
-  }
+  await receiveStock(tx, levels);
 }

@@ -1,17 +1,36 @@
 // Factories shared by the demo seed and the tests: each creates missing parents itself,
-// so a caller states only what it cares about.
-import { eq, sql } from 'drizzle-orm';
-import type { Db } from '../server/db/client.ts';
+// so a caller states only what it cares about. Parts and ranges take the same shapes as the
+// demo data (seed/data/catalogue.ts), so the seed and a test write them the same way.
+import { eq, inArray, sql } from 'drizzle-orm';
+import type { Db, DbOrTx } from '../server/db/client.ts';
 import type { Auth } from '../server/auth.ts';
-import { companies, user } from '../server/db/schema/index.ts';
-import type { Role } from '../shared/roles.ts';
+import {
+  companies,
+  makers,
+  parts,
+  partSupplierSkus,
+  rangeInverters,
+  ranges,
+  stackPlans,
+  stockLevels,
+  stockMovements,
+  suppliers,
+  user,
+  warehouses,
+  bins,
+  defaultBins,
+} from '../server/db/schema/index.ts';
+import { PartAttributesSchema } from '../shared/contracts/part-attributes.ts';
+import { BomRulesSchema } from '../shared/domain/bom-rules.ts';
+import { companyKindOf, type Role } from '../shared/roles.ts';
+import type { DemoMaker, DemoPart, DemoRange } from './data/catalogue.ts';
 
 let counter = 0;
 const next = () => `${Date.now().toString(36)}${(counter++).toString(36)}`;
 
 export const DEMO_PASSWORD = 'stackyard-demo';
 
-export async function makeCompany(db: Db, fields: Partial<typeof companies.$inferInsert> = {}) {
+export async function makeCompany(db: DbOrTx, fields: Partial<typeof companies.$inferInsert> = {}) {
   const values = { name: `Company ${next()}`, kind: 'installer' as const, ...fields };
   const [existing] = await db.select().from(companies).where(eq(companies.name, values.name));
   if (existing) return existing;
@@ -19,7 +38,7 @@ export async function makeCompany(db: Db, fields: Partial<typeof companies.$infe
   return row!;
 }
 
-export async function wholesaler(db: Db) {
+export async function wholesaler(db: DbOrTx) {
   const [found] = await db.select().from(companies).where(eq(companies.kind, 'wholesaler')).limit(1);
   return found ?? makeCompany(db, { name: 'Lowtide Battery Wholesale', kind: 'wholesaler' });
 }
@@ -38,7 +57,7 @@ export async function makeUser(db: Db, auth: Auth, options: MakeUserOptions = {}
   const email = (options.email ?? `${role}-${next()}@example.test`).toLowerCase();
   const [existing] = await db.select().from(user).where(eq(user.email, email));
   if (existing) return existing;
-  const companyId = options.companyId ?? (role === 'installer' ? (await makeCompany(db)).id : (await wholesaler(db)).id);
+  const companyId = options.companyId ?? (companyKindOf(role) === 'installer' ? (await makeCompany(db)).id : (await wholesaler(db)).id);
   const created = await auth.api.createUser({
     body: { email, password: options.password ?? DEMO_PASSWORD, name: options.name ?? `Test ${role}`, role: role as never, data: { companyId } },
   });
@@ -46,17 +65,154 @@ export async function makeUser(db: Db, auth: Auth, options: MakeUserOptions = {}
   return row!;
 }
 
-// ---- Stock and jobs (self-contained: warehouses, stocked parts, opening stock through the ledger) ----
-import { makers, parts, stockLevels, stockMovements, warehouses, bins, defaultBins } from '../server/db/schema/index.ts';
+/** A maker by code (found or created). */
+export async function makeMaker(db: DbOrTx, fields: Partial<Omit<DemoMaker, 'code'>> & { code: string }) {
+  const [existing] = await db.select().from(makers).where(eq(makers.code, fields.code));
+  if (existing) return existing;
+  const [row] = await db.insert(makers).values({ name: `Maker ${fields.code}`, country: 'AU', ...fields }).returning();
+  return row!;
+}
 
-/** A warehouse by code (created when missing). Lower ranks are tried first when reserving. */
-export async function makeWarehouse(db: Db, fields: { code?: string; name?: string; rank?: number } = {}) {
+/** A supplier by code (found or created). */
+export async function makeSupplier(db: DbOrTx, fields: { code: string; name?: string }) {
+  const [existing] = await db.select().from(suppliers).where(eq(suppliers.code, fields.code));
+  if (existing) return existing;
+  const [row] = await db.insert(suppliers).values({ name: `Supplier ${fields.code}`, ...fields }).returning();
+  return row!;
+}
+
+export type PartSpec = Partial<Omit<DemoPart, 'maker'>> & { maker?: string };
+
+/**
+ * A part in the demo data's shape; anything left out is a plain wall bracket. Its maker and its
+ * suppliers are created when missing; `supersededBy` names a part that must already exist.
+ */
+export async function makePart(db: DbOrTx, spec: PartSpec = {}) {
+  const p = {
+    sku: `TST-${next().toUpperCase()}`,
+    name: 'Test wall bracket',
+    category: 'wall-bracket' as const,
+    maker: 'HLM',
+    description: '',
+    unit: 'each' as const,
+    packSize: 1,
+    massKg: 1,
+    lifecycle: 'active' as const,
+    costCents: 1000,
+    listPriceCents: 1500,
+    attributes: { category: 'wall-bracket', fixing: 'masonry' } as DemoPart['attributes'],
+    ...spec,
+  };
+  const maker = await makeMaker(db, { code: p.maker });
+  const [successor] = p.supersededBy ? await db.select({ id: parts.id }).from(parts).where(eq(parts.sku, p.supersededBy)) : [];
+  if (p.supersededBy && !successor) throw new Error(`makePart: ${p.sku} is superseded by ${p.supersededBy}, which does not exist yet`);
+  const [row] = await db
+    .insert(parts)
+    .values({
+      sku: p.sku,
+      name: p.name,
+      category: p.category,
+      makerId: maker.id,
+      description: p.description,
+      gtin: p.gtin ?? null,
+      unit: p.unit,
+      packSize: p.packSize,
+      massKg: p.massKg,
+      widthMm: p.widthMm ?? null,
+      heightMm: p.heightMm ?? null,
+      depthMm: p.depthMm ?? null,
+      ipRating: p.ipRating ?? null,
+      lifecycle: p.lifecycle,
+      supersededById: successor?.id ?? null,
+      unNumber: p.dangerousGoods?.unNumber ?? null,
+      dgClass: p.dangerousGoods?.class ?? null,
+      whRating: p.dangerousGoods?.whRating ?? null,
+      costCents: p.costCents,
+      listPriceCents: p.listPriceCents,
+      attributes: PartAttributesSchema.parse(p.attributes),
+      compliance: p.compliance ?? null,
+    })
+    .returning();
+  for (const s of p.supplierSkus ?? []) {
+    const supplier = await makeSupplier(db, { code: s.supplier });
+    await db.insert(partSupplierSkus).values({ partId: row!.id, supplierId: supplier.id, supplierSku: s.sku });
+  }
+  return row!;
+}
+
+/** A range in the demo data's shape; every SKU it names must already exist. */
+export async function makeRange(db: DbOrTx, spec: DemoRange) {
+  const maker = await makeMaker(db, { code: spec.maker });
+  const skus = [spec.controllerSku, spec.moduleSku, ...spec.compatibleInverterSkus];
+  const found = await db.select({ id: parts.id, sku: parts.sku }).from(parts).where(inArray(parts.sku, skus));
+  const ids = new Map(found.map((p) => [p.sku, p.id]));
+  const missing = skus.filter((s) => !ids.has(s));
+  if (missing.length) throw new Error(`makeRange ${spec.code}: no part ${missing.join(', ')}`);
+  const [row] = await db
+    .insert(ranges)
+    .values({
+      code: spec.code,
+      name: spec.name,
+      makerId: maker.id,
+      connection: spec.connection,
+      controllerId: ids.get(spec.controllerSku)!,
+      moduleId: ids.get(spec.moduleSku)!,
+      minModules: spec.minModules,
+      maxModules: spec.maxModules,
+      maxStacks: spec.maxStacks,
+      baseHeightMm: spec.baseHeightMm,
+      defaultDodPct: spec.defaultDodPct,
+      rules: BomRulesSchema.parse(spec.rules),
+    })
+    .returning();
+  if (spec.compatibleInverterSkus.length)
+    await db.insert(rangeInverters).values(spec.compatibleInverterSkus.map((sku) => ({ rangeId: row!.id, inverterId: ids.get(sku)! })));
+  return row!;
+}
+
+/** A warehouse by code (found or created). */
+export async function makeWarehouse(db: DbOrTx, fields: { code?: string; name?: string; rank?: number } = {}) {
   const code = fields.code ?? `W${next().toUpperCase()}`.slice(0, 16);
   const [existing] = await db.select().from(warehouses).where(eq(warehouses.code, code));
   if (existing) return existing;
-  const [row] = await db.insert(warehouses).values({ code, name: fields.name ?? `Warehouse ${code}`, rank: fields.rank ?? 1 }).returning();
+  const [row] = await db.insert(warehouses).values({ name: `Depot ${code}`, ...fields, code }).returning();
   return row!;
 }
+
+export interface StockSpec {
+  partId: string;
+  warehouseId: string;
+  bin: string;
+  onHand: number;
+}
+
+/** Stock received through the ledger, with levels kept in step (as the stock service will). */
+export async function receiveStock(db: DbOrTx, rows: StockSpec[], reason = 'Opening stock') {
+  for (let i = 0; i < rows.length; i += 500) {
+    const chunk = rows.slice(i, i + 500);
+    await db.insert(stockLevels).values(chunk);
+    await db.insert(stockMovements).values(chunk.map((l) => ({ partId: l.partId, warehouseId: l.warehouseId, bin: l.bin, qty: l.onHand, kind: 'receive' as const, reason })));
+  }
+}
+
+/** A saved draft plan row, for lists and access checks (the planner service computes real ones). */
+export async function makePlan(db: DbOrTx, fields: { companyId: string; rangeId: string; createdBy: string; name?: string; modules?: number }) {
+  const modules = fields.modules ?? 2;
+  const [row] = await db
+    .insert(stackPlans)
+    .values({
+      companyId: fields.companyId,
+      rangeId: fields.rangeId,
+      createdBy: fields.createdBy,
+      name: fields.name ?? `Plan ${next()}`,
+      request: { rangeId: fields.rangeId, modules },
+      summary: { usableKwh: 0, modulesPerStack: modules, stacks: 1 },
+    })
+    .returning();
+  return row!;
+}
+
+// ---- Stock and jobs (self-contained: warehouses, stocked parts, opening stock through the ledger) ----
 
 /** A plain accessory part (its maker created when missing), for stock and job tests. */
 export async function makeStockPart(db: Db, fields: { sku?: string; name?: string; listPriceCents?: number | null; category?: 'accessory' } = {}) {

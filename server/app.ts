@@ -4,82 +4,27 @@ import path from 'node:path';
 import express, { Router } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
-import type { Logger } from 'pino';
-import type { Db } from './db/client.ts';
-import { CLIENT_IP_HEADER, type Auth } from './auth.ts';
-import type { SearchClient } from './search/client.ts';
+import { CLIENT_IP_HEADER } from './auth.ts';
 import { Api } from './http/route.ts';
-import { createSessionCache, sessionMiddleware } from './middleware/session.ts';
+import { sessionMiddleware } from './middleware/session.ts';
 import { originCheck } from './middleware/origin-check.ts';
 import { apiNotFound, errorHandler, notFound } from './middleware/error-handler.ts';
 import { authHandler } from './http/auth-handler.ts';
 import { logSerializers } from './logger.ts';
 import { noStore } from './middleware/no-store.ts';
-import { createUserService, type UserService } from './services/users.ts';
-import { createCatalogueService, type CatalogueService } from './services/catalogue.ts';
-import { createMediaService, type MediaService } from './services/media.ts';
-import { createPartsIndex, type PartsIndex } from './search/parts-index.ts';
-import type { FileStore } from './storage/files.ts';
+import { NotFoundError } from './errors.ts';
 import { systemRoutes } from './routes/system.ts';
 import { userRoutes } from './routes/users.ts';
 import { partRoutes } from './routes/parts.ts';
 import { stackPlanRoutes } from './routes/stack-plans.ts';
-import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerService } from './services/planner.ts';
-import { createTtlCache } from './lib/ttl-cache.ts';
-import { createStockService, type StockService } from './services/stock.ts';
-import { createJobService, type JobService } from './services/jobs.ts';
 import { stockRoutes } from './routes/stock.ts';
 import { jobRoutes } from './routes/jobs.ts';
+import { createServices, type AppDeps, type AppOptions } from './deps.ts';
 
-export interface AppOptions {
-  db: Db;
-  auth: Auth;
-  search: SearchClient;
-  files: FileStore;
-  logger: Logger;
-  trustedOrigins: string[];
-  /** Express "trust proxy" setting: which hops may tell us the client's address. */
-  trustProxy?: string | number | boolean;
-  /** Built client to serve; omitted in API-only tests. */
-  clientDir?: string;
-  /** The clock for stock and jobs (tests move it to expire quote holds). */
-  now?: () => Date;
-  /** How many days a quote (a draft's reservation) holds its units. */
-  quoteHoldDays?: number;
-}
+export { createServices, type AppDeps, type AppOptions };
 
-export interface AppDeps extends AppOptions {
-  sessionCache: ReturnType<typeof createSessionCache>;
-  users: UserService;
-  partsIndex: PartsIndex;
-  catalogue: CatalogueService;
-  media: MediaService;
-  planner: PlannerService;
-  stock: StockService;
-  jobs: JobService;
-}
-
-/** Services built from the injected side effects; shared by the app, CLI tasks and benchmarks. */
-export function createServices(options: AppOptions): AppDeps {
-  const partsIndex = createPartsIndex(options.search);
-  const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
-  const sessionCache = createSessionCache();
-  const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (ids) => partsIndex.sync(options.db, [...new Set(ids)]) });
-  return {
-    ...options,
-    partsIndex,
-    sessionCache,
-    users: createUserService({ ...options, onAccessChanged: sessionCache.clear }),
-    catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
-    media: createMediaService({ db: options.db, files: options.files }),
-    planner,
-    stock: createStockService({ db: options.db, now: options.now }),
-    jobs: createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays }),
-  };
-}
-
-export function createApp(options: AppOptions) {
-  const deps = createServices(options);
+/** The Express app. Pass `deps` to share services with the caller (tests arrange data through the app's own). */
+export function createApp(options: AppOptions, deps: AppDeps = createServices(options)) {
   const app = express();
   app.disable('x-powered-by');
   // Forwarded addresses are believed only when TRUST_PROXY names the hops that set them (e.g. 1 or
@@ -117,6 +62,9 @@ export function createApp(options: AppOptions) {
     if (req.method !== 'GET' && !req.path.startsWith('/sign-in')) deps.sessionCache.clear();
     next();
   });
+  // The library's own admin routes would bypass the company rules: /api/admin/users (services/users.ts)
+  // calls the same admin API in-process with those rules, so over HTTP they do not exist.
+  app.all(['/api/auth/admin', '/api/auth/admin/{*any}'], (_req, _res, next) => next(new NotFoundError('That page')));
   app.all('/api/auth/{*any}', authHandler(options.auth));
   app.use('/api/auth', errorHandler);
 

@@ -20,6 +20,14 @@ const roles = {
   installer: noAdminPowers,
 };
 
+const adminPlugin = admin({ ac, roles, defaultRole: 'installer', adminRoles: ['admin'] });
+/**
+ * The admin plugin's HTTP routes stay closed: its API is called in-process by the users service,
+ * which adds the company rules. (app.ts refuses /api/auth/admin/* first; this covers any path
+ * spelling that reaches the library's router.)
+ */
+const ADMIN_PATHS = Object.values(adminPlugin.endpoints).map((e) => e.path);
+
 export interface AuthOptions {
   db: Db;
   baseURL: string;
@@ -75,7 +83,8 @@ export function createAuth({ db, baseURL, secret, trustedOrigins, signInLimitPer
     },
     experimental: { instrumentation: { enabled: false } },
     telemetry: { enabled: false },
-    plugins: [admin({ ac, roles, defaultRole: 'installer', adminRoles: ['admin'] })],
+    disabledPaths: ADMIN_PATHS,
+    plugins: [adminPlugin],
   });
 }
 

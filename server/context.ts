@@ -5,7 +5,7 @@ import { createLogger } from './logger.ts';
 import { createAuth } from './auth.ts';
 import { createSearchClient } from './search/client.ts';
 import { localSecret } from './local-secret.ts';
-import type { AppOptions } from './app.ts';
+import type { AppOptions } from './deps.ts';
 import { createLocalFileStore } from './storage/files.ts';
 
 /** Everything createApp needs, built from the environment (server, CLI tasks and benchmarks share it). */

@@ -9,7 +9,19 @@ export const ROLE_LABELS: Record<Role, string> = {
   installer: 'Installer',
 };
 
-const staff: Role[] = ['admin', 'purchasing', 'warehouse', 'sales'];
+/** The wholesaler's own people; every other role (installers) works for a customer company. */
+export const STAFF_ROLES = ['admin', 'purchasing', 'warehouse', 'sales'] as const satisfies readonly Role[];
+const staff: Role[] = [...STAFF_ROLES];
+
+export type CompanyKind = 'wholesaler' | 'installer';
+
+/**
+ * The kind of company a role belongs to: staff to the wholesaler itself, installers to a customer
+ * company. The database enforces the same rule (server/db/schema/auth.ts, user_company_kind).
+ */
+export function companyKindOf(role: Role): CompanyKind {
+  return (STAFF_ROLES as readonly Role[]).includes(role) ? 'wholesaler' : 'installer';
+}
 const everyone: Role[] = [...ROLES];
 
 /**

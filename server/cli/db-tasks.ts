@@ -4,7 +4,7 @@ import { readEnv } from '../env.ts';
 import { migrateDb, withSchemaLock } from '../db/client.ts';
 import { buildContext } from '../context.ts';
 import { seedDemo } from '../../seed/demo.ts';
-import { createServices } from '../app.ts';
+import { createServices } from '../deps.ts';
 
 const tasks = process.argv.slice(2);
 const context = buildContext(readEnv());

@@ -40,5 +40,7 @@ async function lookUp(auth: Auth, headers: import('node:http').IncomingHttpHeade
     email: found.user.email,
     role,
     companyId: (found.user as { companyId?: string | null }).companyId ?? null,
+    // Only the cookie: the actor is remembered per session token, and that is all the cookie holds.
+    credentials: new Headers({ cookie: headers.cookie ?? '' }),
   };
 }

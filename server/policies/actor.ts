@@ -9,6 +9,11 @@ export interface Actor {
   email: string;
   role: Role;
   companyId: string | null;
+  /**
+   * The request's session cookie, for the few calls the auth library makes in the actor's name
+   * (its admin API checks the caller's session itself). Absent for actors made outside a request.
+   */
+  credentials?: Headers;
 }
 
 /** Every service calls this first, so no route can forget its role check. */

@@ -1,5 +1,6 @@
+import { companyKindOf, type Role } from '@shared/roles.ts';
 import type { Actor } from './actor.ts';
-import { NotFoundError } from '../errors.ts';
+import { NotFoundError, ValidationError } from '../errors.ts';
 
 /**
  * Object-level rules, in one place: installers act for their own company only; wholesaler
@@ -9,7 +10,20 @@ import { NotFoundError } from '../errors.ts';
 
 /** True when the actor is limited to their own company's objects. */
 export function isCompanyBound(actor: Actor): boolean {
-  return actor.role === 'installer';
+  return companyKindOf(actor.role) === 'installer';
+}
+
+/**
+ * A user's company must fit their role: staff belong to the wholesaler, installers to exactly one
+ * customer company. Throws a field error on `companyId` otherwise (the database refuses it too).
+ */
+export function assertCompanyFitsRole(role: Role, company: { kind: string } | null): void {
+  const wanted = companyKindOf(role);
+  if (!company && wanted === 'installer') throw new ValidationError('An installer must belong to a customer company.', { fields: [{ path: 'companyId', message: 'Choose a company.' }] });
+  if (company && company.kind !== wanted) {
+    const message = wanted === 'installer' ? 'Installers belong to a customer company.' : 'Staff belong to the wholesaler, not a customer company.';
+    throw new ValidationError(message, { fields: [{ path: 'companyId', message }] });
+  }
 }
 
 /** The company an actor's queries must be limited to, or null when they may see every company. */

@@ -1,6 +1,8 @@
 import type { PartDetail, PartSummary } from '@shared/contracts/parts.ts';
 import type { CategoryCode } from '@shared/contracts/part-attributes.ts';
 import { can } from '@shared/roles.ts';
+import { CATEGORY_LABELS } from '@shared/contracts/part-attributes.ts';
+import { centsToDollars } from '@shared/domain/money.ts';
 import type { PartDocument } from '../search/parts-index.ts';
 import type { Actor } from '../policies/actor.ts';
 import type { CatalogueService } from '../services/catalogue.ts';
@@ -27,6 +29,22 @@ export function presentPartSummary(d: PartDocument): PartSummary {
     available: d.available,
     inStock: d.inStock,
     thumbnailUrl: d.thumbnailId ? thumbnailUrl(d.thumbnailId) : null,
+  };
+}
+
+/** One catalogue CSV row; money as a plain decimal figure (decimal arithmetic, no float drift). */
+export function presentPartCsvRow(d: PartDocument) {
+  return {
+    SKU: d.sku,
+    Name: d.name,
+    Category: CATEGORY_LABELS[d.category],
+    Maker: d.makerName,
+    GTIN: d.gtin ?? '',
+    Lifecycle: d.lifecycle,
+    Ranges: d.ranges.join(' '),
+    'Pack size': d.packSize,
+    Available: d.available,
+    'List price (AUD)': d.listPriceCents === null ? '' : centsToDollars(d.listPriceCents),
   };
 }
 

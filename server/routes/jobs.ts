@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { text } from '@shared/contracts/text.ts';
 import { CreateJobSchema, JobListQuerySchema, JobListSchema, JobSchema } from '@shared/contracts/jobs.ts';
 import type { Api } from '../http/route.ts';
-import type { AppDeps } from '../app.ts';
+import type { AppDeps } from '../deps.ts';
 import { presentJob, presentJobSummary } from '../presenters/jobs.ts';
 import { sendCsv } from '../http/csv.ts';
 import { JOB_STATUS_LABELS } from '@shared/contracts/jobs.ts';

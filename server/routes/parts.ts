@@ -2,11 +2,10 @@ import { z } from 'zod';
 import { text } from '@shared/contracts/text.ts';
 import multer from 'multer';
 import { MakerSchema, MediaSchema, PartDetailSchema, PartInputSchema, PartListQuerySchema, PartListResponseSchema, RangeSummarySchema } from '@shared/contracts/parts.ts';
-import { CATEGORY_LABELS } from '@shared/contracts/part-attributes.ts';
 import { sendCsv } from '../http/csv.ts';
 import type { Api } from '../http/route.ts';
-import type { AppDeps } from '../app.ts';
-import { presentMedia, presentPartDetail, presentPartSummary } from '../presenters/parts.ts';
+import type { AppDeps } from '../deps.ts';
+import { presentMedia, presentPartCsvRow, presentPartDetail, presentPartSummary } from '../presenters/parts.ts';
 import { DATASHEET_LIMIT } from '../services/media.ts';
 import { AppError } from '../errors.ts';
 
@@ -26,30 +25,14 @@ const uploadOne: import('express').RequestHandler = (req, res, next) =>
     next(new AppError(400, 'bad_upload', 'Send one file in the form field "file".'));
   });
 
-export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
+export function partRoutes(api: Api, { catalogue, media }: Pick<AppDeps, 'catalogue' | 'media'>) {
   api.route({ method: 'get', path: '/parts', summary: 'Search and filter the catalogue', tag: 'catalogue', ability: 'catalogue.view', query: PartListQuerySchema, response: PartListResponseSchema }, async ({ actor, query }) => {
     const r = await catalogue.list(actor, query);
     return { data: r.hits.map(presentPartSummary), facets: r.facets, total: r.total, page: query.page, pageSize: query.pageSize, exactSku: r.exactSku };
   });
 
   api.route({ method: 'get', path: '/parts/export.csv', summary: 'The filtered catalogue as CSV', tag: 'catalogue', ability: 'catalogue.view', query: PartListQuerySchema, produces: 'text/csv' }, async ({ actor, query, res }) => {
-    const rows = await catalogue.exportRows(actor, query);
-    sendCsv(
-      res,
-      rows.map((d) => ({
-        SKU: d.sku,
-        Name: d.name,
-        Category: CATEGORY_LABELS[d.category],
-        Maker: d.makerName,
-        GTIN: d.gtin ?? '',
-        Lifecycle: d.lifecycle,
-        Ranges: d.ranges.join(' '),
-        'Pack size': d.packSize,
-        Available: d.available,
-        'List price (AUD)': d.listPriceCents === null ? '' : (d.listPriceCents / 100).toFixed(2),
-      })),
-      'stackyard-catalogue',
-    );
+    sendCsv(res, (await catalogue.exportRows(actor, query)).map(presentPartCsvRow), 'stackyard-catalogue');
   });
 
   api.route({ method: 'get', path: '/parts/lookup', summary: 'Find a part by scanned SKU, GTIN or supplier SKU', tag: 'catalogue', ability: 'catalogue.view', query: z.object({ code: text().trim().min(1).max(64) }), response: z.object({ data: z.object({ sku: text() }) }) }, async ({ actor, query }) => {
@@ -80,13 +63,11 @@ export function partRoutes(api: Api, { catalogue, media }: AppDeps) {
 
   api.route({ method: 'post', path: '/parts/:sku/media', summary: 'Upload a photo (JPEG/PNG/WebP ≤ 5 MB) or datasheet (PDF ≤ 20 MB)', tag: 'catalogue', params: SkuParams, upload: MediaUploadForm, response: z.object({ data: MediaSchema }), status: 201, ability: 'catalogue.edit', middleware: [uploadOne] }, async ({ actor, params, req }) => {
     const row = await media.upload(actor, params.sku, req.file);
-    await catalogue.reindex(row.partId);
     return { data: presentMedia(row) };
   });
 
   api.route({ method: 'delete', path: '/parts/:sku/media/:id', summary: 'Remove a photo or datasheet', tag: 'catalogue', ability: 'catalogue.edit', params: SkuParams.extend(MediaParams.shape), status: 204 }, async ({ actor, params, res }) => {
-    const partId = await media.remove(actor, params.sku, params.id);
-    await catalogue.reindex(partId);
+    await media.remove(actor, params.sku, params.id);
     res.status(204).end();
   });
 

@@ -3,17 +3,17 @@ import { text } from '@shared/contracts/text.ts';
 import { InverterOptionSchema, RangeDetailSchema, RangeInputSchema, SavedPlanSchema, SavePlanSchema, StackPlanRequestSchema, StackPlanSchema, type StackPlanResult } from '@shared/contracts/stack-plans.ts';
 import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
 import { sendCsv } from '../http/csv.ts';
-import { centsToDecimalString } from '@shared/domain/money.ts';
+import { centsToDollars } from '@shared/domain/money.ts';
 import type { Response } from 'express';
 import type { Api } from '../http/route.ts';
-import type { AppDeps } from '../app.ts';
+import type { AppDeps } from '../deps.ts';
 import { renderPlanPdf } from '../documents/plan-pdf.ts';
 import { presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.ts';
 
 const IdParams = z.object({ id: text().min(1).max(64) });
 
 function sendBomCsv(res: Response, plan: StackPlanResult, fileName: string) {
-  const money = (cents: number | null) => (cents == null ? '' : centsToDecimalString(cents));
+  const money = (cents: number | null) => (cents == null ? '' : centsToDollars(cents));
   const lines = plan.bom.map((l) => ({
     SKU: l.sku,
     Part: l.name,
@@ -43,7 +43,7 @@ async function sendPlanPdf(res: Response, plan: StackPlanResult, title: string, 
 
 const fileStem = (s: string) => s.replace(/[^\w-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'stack-plan';
 
-export function stackPlanRoutes(api: Api, { planner }: AppDeps) {
+export function stackPlanRoutes(api: Api, { planner }: Pick<AppDeps, 'planner'>) {
   api.route({ method: 'post', path: '/stack-plans', summary: 'Plan a stack: figures, cautions and a BOM with availability', tag: 'planner', ability: 'plans.create', body: StackPlanRequestSchema, response: z.object({ data: StackPlanSchema }) }, async ({ actor, body }) => ({
     data: await planner.plan(actor, body),
   }));

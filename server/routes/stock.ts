@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { text } from '@shared/contracts/text.ts';
 import { AdjustmentSchema, BinInputSchema, CountSchema, DefaultBinSchema, LedgerResultSchema, LowStockSchema, MovementQuerySchema, MovementSchema, ReceiptSchema, ReturnSchema, StockLevelSchema, StockLimitSchema, StockQuerySchema, TransferSchema, WarehouseInputSchema, WarehouseSchema } from '@shared/contracts/stock.ts';
 import type { Api } from '../http/route.ts';
-import type { AppDeps } from '../app.ts';
+import type { AppDeps } from '../deps.ts';
 import { presentMovement } from '../presenters/stock.ts';
 
 const Ledger = z.object({ data: LedgerResultSchema });

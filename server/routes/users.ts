@@ -2,13 +2,13 @@ import { z } from 'zod';
 import { text } from '@shared/contracts/text.ts';
 import { CompanyOptionSchema, CreateUserSchema, ResetPasswordSchema, UpdateUserSchema, UserListQuerySchema, UserRowSchema } from '@shared/contracts/users.ts';
 import type { Api } from '../http/route.ts';
-import type { AppDeps } from '../app.ts';
+import type { AppDeps } from '../deps.ts';
 import { presentUser } from '../presenters/users.ts';
 
 const IdParams = z.object({ id: text().min(1).max(64) });
 const one = z.object({ data: UserRowSchema });
 
-export function userRoutes(api: Api, { users }: AppDeps) {
+export function userRoutes(api: Api, { users }: Pick<AppDeps, 'users'>) {
   api.route({ method: 'get', path: '/admin/users', summary: 'List and search users', tag: 'admin', ability: 'users.manage', query: UserListQuerySchema, response: z.object({ data: z.array(UserRowSchema) }) }, async ({ actor, query }) => ({
     data: (await users.list(actor, query.q)).map(presentUser),
   }));

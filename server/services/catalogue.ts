@@ -193,11 +193,6 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
       return { sku };
     },
 
-    /** After a change outside save() (media), the search document follows. */
-    async reindex(partId: string) {
-      await partsIndex.sync(db, [partId]);
-    },
-
     async list(actor: Actor, query: PartListQuery) {
       authorize(actor, 'catalogue.view');
       const { searches, facetsAlone, code } = catalogueSearches(query, { supplierData: seesSuppliers(actor) });

@@ -4,6 +4,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import type { Db } from '../db/client.ts';
 import { partMedia, parts } from '../db/schema/index.ts';
 import type { FileStore } from '../storage/files.ts';
+import type { PartsIndex } from '../search/parts-index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { AppError, NotFoundError, ValidationError } from '../errors.ts';
 
@@ -36,7 +37,11 @@ async function classify(file: Upload) {
   return { kind: 'image' as const, contentType: type.mime, extension: ext };
 }
 
-export function createMediaService({ db, files }: { db: Db; files: FileStore }) {
+/**
+ * Photos and datasheets. An upload or removal and the part's search document (its thumbnail)
+ * change in one transaction: a refused index update rolls the row back.
+ */
+export function createMediaService({ db, files, partsIndex }: { db: Db; files: FileStore; partsIndex: PartsIndex }) {
   async function partId(sku: string) {
     const [p] = await db.select({ id: parts.id }).from(parts).where(eq(parts.sku, sku.toUpperCase()));
     if (!p) throw new NotFoundError('That part');
@@ -60,11 +65,14 @@ export function createMediaService({ db, files }: { db: Db; files: FileStore }) 
       const storageKey = await files.put(file.buffer, what.extension);
       const thumbnailKey = thumbnail ? await files.put(thumbnail, 'webp') : null;
       try {
-        const [row] = await db
-          .insert(partMedia)
-          .values({ partId: id, kind: what.kind, contentType: what.contentType, fileName: safeName(file.originalname, what.extension), bytes: file.size, storageKey, thumbnailKey })
-          .returning();
-        return row!;
+        return await db.transaction(async (tx) => {
+          const [row] = await tx
+            .insert(partMedia)
+            .values({ partId: id, kind: what.kind, contentType: what.contentType, fileName: safeName(file.originalname, what.extension), bytes: file.size, storageKey, thumbnailKey })
+            .returning();
+          await partsIndex.sync(tx, [id]);
+          return row!;
+        });
       } catch (e) {
         await files.remove(storageKey);
         if (thumbnailKey) await files.remove(thumbnailKey);
@@ -75,11 +83,15 @@ export function createMediaService({ db, files }: { db: Db; files: FileStore }) 
     async remove(actor: Actor, sku: string, mediaId: string) {
       authorize(actor, 'catalogue.edit');
       const id = await partId(sku);
-      const [row] = await db.delete(partMedia).where(and(eq(partMedia.id, mediaId), eq(partMedia.partId, id))).returning();
-      if (!row) throw new NotFoundError('That file');
+      const row = await db.transaction(async (tx) => {
+        const [removed] = await tx.delete(partMedia).where(and(eq(partMedia.id, mediaId), eq(partMedia.partId, id))).returning();
+        if (!removed) throw new NotFoundError('That file');
+        await partsIndex.sync(tx, [id]);
+        return removed;
+      });
+      // The files go once the row is gone for good; a failed removal leaves only an orphan file.
       await files.remove(row.storageKey);
       if (row.thumbnailKey) await files.remove(row.thumbnailKey);
-      return row.partId;
     },
 
     /** The bytes of a file (or its thumbnail) for anyone who may see the catalogue. */

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, inArray, or, sql } from 'drizzle-orm';
-import type { Db } from '../db/client.ts';
+import type { Db, Tx } from '../db/client.ts';
 import { companies, makers, parts, rangeInverters, ranges, stackPlans, stockLevels, user, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { companyForNew, companyScopeOf, isCompanyBound } from '../policies/company-scope.ts';
@@ -119,8 +119,8 @@ export const RANGE_CACHE_MS = 10_000;
 export interface PlannerDeps {
   db: Db;
   rangeCache?: TtlCache<LoadedRange>;
-  /** Called with the parts a range edit touched, so their search documents can follow. */
-  onRangeChanged?: (partIds: string[]) => Promise<unknown>;
+  /** Called inside a range edit's transaction with the parts it touched, so their search documents follow (or the edit rolls back). */
+  onRangeChanged?: (tx: Tx, partIds: string[]) => Promise<unknown>;
 }
 
 export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS), onRangeChanged = async () => {} }: PlannerDeps) {
@@ -143,17 +143,17 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
 
   /** Available (on hand − reserved) per SKU and warehouse. */
   async function availability(skus: string[]) {
-    if (skus.length === 0) return new Map<string, { warehouse: string; available: number }[]>();
+    if (skus.length === 0) return new Map<string, { warehouse: string; warehouseName: string; available: number }[]>();
     const rows = await db
-      .select({ sku: parts.sku, warehouse: warehouses.code, available: sql<number>`sum(${stockLevels.onHand} - ${stockLevels.reserved})::int` })
+      .select({ sku: parts.sku, warehouse: warehouses.code, warehouseName: warehouses.name, available: sql<number>`sum(${stockLevels.onHand} - ${stockLevels.reserved})::int` })
       .from(stockLevels)
       .innerJoin(parts, eq(parts.id, stockLevels.partId))
       .innerJoin(warehouses, eq(warehouses.id, stockLevels.warehouseId))
       .where(inArray(parts.sku, skus))
-      .groupBy(parts.sku, warehouses.code, warehouses.rank)
+      .groupBy(parts.sku, warehouses.code, warehouses.name, warehouses.rank)
       .orderBy(asc(warehouses.rank));
-    const out = new Map<string, { warehouse: string; available: number }[]>();
-    for (const r of rows) out.set(r.sku, [...(out.get(r.sku) ?? []), { warehouse: r.warehouse, available: r.available }]);
+    const out = new Map<string, { warehouse: string; warehouseName: string; available: number }[]>();
+    for (const r of rows) out.set(r.sku, [...(out.get(r.sku) ?? []), { warehouse: r.warehouse, warehouseName: r.warehouseName, available: r.available }]);
     return out;
   }
 
@@ -342,12 +342,10 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
           .where(eq(ranges.id, current.row.id));
         await tx.delete(rangeInverters).where(eq(rangeInverters.rangeId, current.row.id));
         if (input.inverterSkus.length) await tx.insert(rangeInverters).values(input.inverterSkus.map((s) => ({ rangeId: current.row.id, inverterId: bySku.get(s.toUpperCase())!.id })));
-      });
-      rangeCache.clear();
-      // Parts that were in the range (controller, module, rule parts, inverters) and those now in it.
-      const oldSkus = Object.keys(current.parts);
-      const oldIds = (await db.select({ id: parts.id }).from(parts).where(inArray(parts.sku, oldSkus))).map((r) => r.id);
-      await onRangeChanged([...found.map((p) => p.id), ...oldIds, ...current.inverters.map((p) => p.id)]);
+        // Parts that were in the range (controller, module, rule parts, inverters) and those now in it.
+        const oldIds = (await tx.select({ id: parts.id }).from(parts).where(inArray(parts.sku, Object.keys(current.parts)))).map((r) => r.id);
+        await onRangeChanged(tx, [...found.map((p) => p.id), ...oldIds, ...current.inverters.map((p) => p.id)]);
+      }).finally(rangeCache.clear);
       return this.rangeDetail(actor, current.row.id);
     },
   };

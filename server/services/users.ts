@@ -1,11 +1,12 @@
-import { and, asc, eq, ilike, or } from 'drizzle-orm';
+import { asc, eq, ilike, or } from 'drizzle-orm';
 import type { Db } from '../db/client.ts';
-import { companies, session, user, account } from '../db/schema/index.ts';
+import { companies, user } from '../db/schema/index.ts';
 import type { Auth } from '../auth.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
-import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
+import { assertCompanyFitsRole } from '../policies/company-scope.ts';
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors.ts';
 import type { CreateUserInput, UpdateUserInput } from '@shared/contracts/users.ts';
-import type { Role } from '@shared/roles.ts';
+import { companyKindOf, type Role } from '@shared/roles.ts';
 
 export interface UserRecord {
   id: string;
@@ -18,7 +19,14 @@ export interface UserRecord {
   createdAt: Date;
 }
 
-/** `onAccessChanged` runs after anything that changes who may do what (sessions remembered elsewhere drop). */
+/**
+ * Users through the auth library's admin API (create, update, ban, password, sessions), so the
+ * library hashes passwords and revokes sessions its own way; this service adds the company rule
+ * and reads. It never writes the library's tables itself. The library's own admin routes are
+ * closed (app.ts): these are the only way in.
+ *
+ * `onAccessChanged` runs after anything that changes who may do what (sessions remembered elsewhere drop).
+ */
 export function createUserService({ db, auth, onAccessChanged = () => {} }: { db: Db; auth: Auth; onAccessChanged?: () => void }) {
   const columns = {
     id: user.id,
@@ -37,20 +45,22 @@ export function createUserService({ db, auth, onAccessChanged = () => {} }: { db
     return row;
   }
 
-  /** Installers belong to exactly one customer company; staff belong to the wholesaler. */
-  async function checkCompany(role: Role, companyId: string | null | undefined) {
-    if (!companyId) {
-      if (role === 'installer') throw new ValidationError('An installer must belong to a customer company.', { fields: [{ path: 'companyId', message: 'Choose a company.' }] });
-      return null;
-    }
-    const [company] = await db.select().from(companies).where(eq(companies.id, companyId));
-    if (!company) throw new ValidationError('That company does not exist.', { fields: [{ path: 'companyId', message: 'Choose an existing company.' }] });
-    const wanted = role === 'installer' ? 'installer' : 'wholesaler';
-    if (company.kind !== wanted) {
-      const message = role === 'installer' ? 'Installers belong to a customer company.' : 'Staff belong to the wholesaler, not a customer company.';
-      throw new ValidationError(message, { fields: [{ path: 'companyId', message }] });
-    }
-    return company.id;
+  /** The company a user of this role belongs to: the one named if it fits, the wholesaler for staff who name none. */
+  async function companyFor(role: Role, companyId: string | null | undefined) {
+    const [company] = companyId
+      ? await db.select({ id: companies.id, kind: companies.kind }).from(companies).where(eq(companies.id, companyId))
+      : companyKindOf(role) === 'wholesaler'
+        ? await db.select({ id: companies.id, kind: companies.kind }).from(companies).where(eq(companies.kind, 'wholesaler')).limit(1)
+        : [];
+    if (companyId && !company) throw new ValidationError('That company does not exist.', { fields: [{ path: 'companyId', message: 'Choose an existing company.' }] });
+    assertCompanyFitsRole(role, company ?? null);
+    return company?.id ?? null;
+  }
+
+  /** The signed-in admin's own session, which the library's admin API checks. */
+  function as(actor: Actor) {
+    if (!actor.credentials) throw new ForbiddenError();
+    return actor.credentials;
   }
 
   return {
@@ -64,10 +74,11 @@ export function createUserService({ db, auth, onAccessChanged = () => {} }: { db
 
     async create(actor: Actor, input: CreateUserInput) {
       authorize(actor, 'users.manage');
-      const companyId = await checkCompany(input.role, input.companyId ?? null) ?? (await wholesalerId());
+      const companyId = await companyFor(input.role, input.companyId);
       const [taken] = await db.select({ id: user.id }).from(user).where(eq(user.email, input.email));
       if (taken) throw new ConflictError('A user with that e-mail already exists.', { fields: [{ path: 'email', message: 'Already in use.' }] });
       const created = await auth.api.createUser({
+        headers: as(actor),
         body: { email: input.email, password: input.password, name: input.name, role: input.role as never, data: { companyId } },
       });
       return find(created.user.id);
@@ -81,23 +92,17 @@ export function createUserService({ db, auth, onAccessChanged = () => {} }: { db
       }
       const role = (input.role ?? current.role ?? 'installer') as Role;
       const companyChanging = input.companyId !== undefined || input.role !== undefined;
-      const companyId = companyChanging
-        ? (await checkCompany(role, input.companyId === undefined ? current.companyId : input.companyId)) ?? (await wholesalerId())
-        : current.companyId;
-      await db.transaction(async (tx) => {
-        await tx
-          .update(user)
-          .set({
-            name: input.name ?? current.name,
-            role,
-            companyId,
-            banned: input.active === undefined ? current.banned : !input.active,
-            updatedAt: new Date(),
-          })
-          .where(eq(user.id, id));
-        // Deactivating or changing what someone may do ends their sessions at once.
-        if (input.active === false || (input.role && input.role !== current.role)) await tx.delete(session).where(eq(session.userId, id));
-      });
+      // Staff always belong to the wholesaler, so a move to a staff role need not name it.
+      const requested = input.companyId !== undefined ? input.companyId : companyKindOf(role) === 'wholesaler' ? null : current.companyId;
+      const companyId = companyChanging ? await companyFor(role, requested) : current.companyId;
+      const headers = as(actor);
+      // Deactivate first, so a failure further on never leaves someone signed in with new powers.
+      if (input.active === false && !current.banned) await auth.api.banUser({ headers, body: { userId: id, banReason: 'Deactivated in Stackyard' } });
+      // Name, role and company in one row update, so the database's company rule sees them together.
+      await auth.api.adminUpdateUser({ headers, body: { userId: id, data: { name: input.name ?? current.name, role, companyId } } });
+      // Changing what someone may do ends their sessions at once (banning already has).
+      if (input.role && input.role !== current.role) await auth.api.revokeUserSessions({ headers, body: { userId: id } });
+      if (input.active === true && current.banned) await auth.api.unbanUser({ headers, body: { userId: id } });
       onAccessChanged();
       return find(id);
     },
@@ -105,17 +110,9 @@ export function createUserService({ db, auth, onAccessChanged = () => {} }: { db
     async resetPassword(actor: Actor, id: string, password: string) {
       authorize(actor, 'users.manage');
       await find(id);
-      const ctx = await auth.$context;
-      const hash = await ctx.password.hash(password);
-      await db.transaction(async (tx) => {
-        const updated = await tx
-          .update(account)
-          .set({ password: hash, updatedAt: new Date() })
-          .where(and(eq(account.userId, id), eq(account.providerId, 'credential')))
-          .returning({ id: account.id });
-        if (updated.length === 0) throw new NotFoundError('That user’s password sign-in');
-        await tx.delete(session).where(eq(session.userId, id));
-      });
+      const headers = as(actor);
+      await auth.api.setUserPassword({ headers, body: { userId: id, newPassword: password } });
+      await auth.api.revokeUserSessions({ headers, body: { userId: id } });
       onAccessChanged();
     },
 
@@ -124,11 +121,6 @@ export function createUserService({ db, auth, onAccessChanged = () => {} }: { db
       return db.select({ id: companies.id, name: companies.name, kind: companies.kind }).from(companies).orderBy(asc(companies.name));
     },
   };
-
-  async function wholesalerId() {
-    const [w] = await db.select({ id: companies.id }).from(companies).where(eq(companies.kind, 'wholesaler')).limit(1);
-    return w?.id ?? null;
-  }
 }
 
 export type UserService = ReturnType<typeof createUserService>;

@@ -51,7 +51,7 @@ export const PlanBomLineSchema = z.object({
   unitPriceCents: z.number().nullable(),
   lineTotalCents: z.number().nullable(),
   available: z.number(),
-  availability: z.array(z.object({ warehouse: text(), available: z.number() })),
+  availability: z.array(z.object({ warehouse: text(), warehouseName: text(), available: z.number() })),
   short: z.number(),
 });
 export type PlanBomLine = z.infer<typeof PlanBomLineSchema>;

@@ -52,3 +52,16 @@ export const CompanyOptionSchema = z.object({
   name: text(),
   kind: z.enum(['wholesaler', 'installer']),
 });
+export type CompanyOption = z.infer<typeof CompanyOptionSchema>;
+
+/** The user editor's role and company (an installer names their customer company). */
+export const UserAccessSchema = z
+  .object({
+    role: RoleSchema,
+    companyId: text().uuid('Choose a company.').nullable(),
+  })
+  .refine((u) => u.role !== 'installer' || !!u.companyId, {
+    path: ['companyId'],
+    message: 'An installer belongs to exactly one customer company: choose it.',
+  });
+export type UserAccessInput = z.infer<typeof UserAccessSchema>;

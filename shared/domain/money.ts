@@ -80,7 +80,23 @@ export function formatCents(cents: number, locale = 'en-AU', currency = 'AUD'): 
   return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(cents / 100);
 }
 
-/** Cents as a plain decimal amount for files, e.g. 123450 → "1234.50" (no symbol, no grouping). */
-export function centsToDecimalString(cents: number): string {
-  return toDecimal(cents, 'The amount').dividedBy(100).toFixed(2);
+/**
+ * Cents as a plain dollar figure for forms and CSV files, e.g. 123450 → "1234.50", 1234.56 → "12.3456":
+ * at least two decimals, more only when the cents carry fractions (4-dp costs). No grouping, no symbol.
+ */
+export function centsToDollars(cents: number): string {
+  const dollars = toDecimal(cents, 'The amount').dividedBy(100);
+  return dollars.toFixed(Math.max(2, dollars.decimalPlaces()));
+}
+
+/**
+ * What someone typed in a dollar box, as cents: "$1,234.50" → 123450, "12.3456" → 1234.56,
+ * blank → null. Anything that is not a plain decimal number ("sixty", "1.2.3", "1e3") is NaN,
+ * so the caller refuses it instead of saving a blank.
+ */
+export function dollarsToCents(text: string): number | null {
+  const raw = text.replace(/[$,\s]/g, '');
+  if (raw === '') return null;
+  if (!/^-?(\d+\.?\d*|\.\d+)$/.test(raw)) return Number.NaN;
+  return new Decimal(raw).times(100).toNumber();
 }

@@ -1,18 +1,7 @@
-import { createBrowserRouter, redirect, RouterProvider } from 'react-router';
-import { queryClient } from '@/lib/query-client.ts';
-import { meQueryOptions } from '@/features/auth/api/get-me.ts';
+import { createBrowserRouter, RouterProvider } from 'react-router';
 import { paths } from '@/config/paths.ts';
 import { RouteError } from './routes/route-error.tsx';
-
-/** Pages behind sign-in: no session → the sign-in page, remembering where the user was going. */
-async function requireSession({ request }: { request: Request }) {
-  const me = await queryClient.ensureQueryData(meQueryOptions());
-  if (!me) {
-    const url = new URL(request.url);
-    throw redirect(paths.signIn.href(url.pathname + url.search));
-  }
-  return me;
-}
+import { AppLayout } from './layout.tsx';
 
 const router = createBrowserRouter([
   {
@@ -21,9 +10,10 @@ const router = createBrowserRouter([
     errorElement: <RouteError />,
   },
   {
+    // Pages behind sign-in. The frame is part of the first download and draws at once; it checks
+    // the session itself (no session → the sign-in page, remembering where the user was going).
     path: '/',
-    loader: requireSession,
-    lazy: () => import('./layout.tsx').then((m) => ({ Component: m.AppLayout })),
+    Component: AppLayout,
     errorElement: <RouteError />,
     children: [
       {

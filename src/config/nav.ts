@@ -12,7 +12,7 @@ export interface NavItem {
 
 export const NAV: NavItem[] = [
   { label: 'Home', href: paths.home.href() },
-  { label: 'Catalogue', href: paths.catalogue.href(), needs: 'catalogue.view', blurb: 'Find any part by name, SKU, GTIN or supplier code; press / to search, or scan.' },
+  { label: 'Catalogue', href: paths.catalogue.href(), needs: 'catalogue.view', blurb: 'Find any part by name or code, or scan its barcode.' },
   { label: 'Stack planner', href: paths.planner.href(), needs: 'plans.create', blurb: 'Turn a range and a stack size, or a target usable kWh, into a complete bill of materials.' },
   { label: 'Saved plans', href: paths.plans.href(), needs: 'plans.create', blurb: 'Draft plans for your sites, ready to reopen, print or export.' },
   { label: 'Jobs', href: paths.jobs.href(), needs: 'jobs.view', blurb: 'Orders for each site: reserved, backordered and where every unit is held.' },

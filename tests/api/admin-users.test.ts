@@ -1,7 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { createTestApp, TEST_ORIGIN, type TestApp } from '../support/app.ts';
+import { eq, sql as drizzleSql } from 'drizzle-orm';
 import { makeCompany, wholesaler } from '../../seed/factories.ts';
+import { user } from '../../server/db/schema/index.ts';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -117,5 +119,64 @@ describe('admin user routes', () => {
     const home = await wholesaler(t.db);
     const res = await admin.get('/api/admin/companies').expect(200);
     expect(res.body.data.some((c: { id: string; kind: string }) => c.id === home.id && c.kind === 'wholesaler')).toBe(true);
+  });
+});
+
+describe('the company rule for users', () => {
+  it('moves a user to a staff role in the wholesaler, and an installer only into a customer company', async () => {
+    const admin = await t.signIn('admin');
+    const installer = await t.signIn('installer');
+    const home = await wholesaler(t.db);
+    const toSales = await admin.patch(`/api/admin/users/${installer.userId}`).send({ role: 'sales' });
+    expect(toSales.status).toBe(200);
+    expect(toSales.body.data).toMatchObject({ role: 'sales', companyId: home.id });
+    const backWithout = await admin.patch(`/api/admin/users/${installer.userId}`).send({ role: 'installer' });
+    expect(backWithout.status).toBe(400);
+    expect(backWithout.body.error.details.fields[0].path).toBe('companyId');
+    const customer = await makeCompany(t.db);
+    const back = await admin.patch(`/api/admin/users/${installer.userId}`).send({ role: 'installer', companyId: customer.id });
+    expect(back.body.data).toMatchObject({ role: 'installer', companyId: customer.id });
+  });
+
+  it('keeps the auth library’s own admin routes closed, so they cannot bypass the rule', async () => {
+    const admin = await t.signIn('admin');
+    const installer = await t.signIn('installer');
+    const attempts: [string, Record<string, unknown>][] = [
+      ['set-role', { userId: installer.userId, role: 'sales' }],
+      ['create-user', { email: 'nocompany@example.test', password: 'a-good-password', name: 'No Company', role: 'installer' }],
+      ['update-user', { userId: installer.userId, data: { role: 'admin' } }],
+      ['ban-user', { userId: installer.userId }],
+      ['set-user-password', { userId: installer.userId, newPassword: 'a-good-password' }],
+      ['impersonate-user', { userId: installer.userId }],
+      ['remove-user', { userId: installer.userId }],
+    ];
+    for (const [path, body] of attempts) {
+      for (const spelling of [`/api/auth/admin/${path}`, `/api/auth/ADMIN/${path}`, `/api/auth/admin/${path}/`]) {
+        const res = await admin.post(spelling).set('origin', TEST_ORIGIN).send(body);
+        expect(res.status, spelling).toBe(404);
+        expect(res.body.error.code, spelling).toBe('not_found');
+      }
+    }
+    await admin.get('/api/auth/admin/list-users').expect(404);
+    const [row] = await t.db.select().from(user).where(eq(user.id, installer.userId));
+    expect(row).toMatchObject({ role: 'installer', companyId: installer.companyId, banned: false });
+    expect(await t.db.select().from(user).where(eq(user.email, 'nocompany@example.test'))).toEqual([]);
+    await installer.get('/api/me').expect(200);
+  });
+
+  it('is kept by the database too: staff only in the wholesaler, installers only in a customer company', async () => {
+    const installer = await t.signIn('installer');
+    const sales = await t.signIn('sales');
+    const home = await wholesaler(t.db);
+    const refused = (query: ReturnType<typeof drizzleSql>) => t.db.execute(query).then(() => null, (e: { cause?: { code?: string } }) => e.cause?.code ?? 'error');
+    // 23503: the (company, kind) pair has no match; 23514: the check constraint.
+    expect(await refused(drizzleSql`update "user" set role = 'sales' where id = ${installer.userId}`)).toBe('23503');
+    expect(await refused(drizzleSql`update "user" set company_id = ${home.id} where id = ${installer.userId}`)).toBe('23503');
+    expect(await refused(drizzleSql`update "user" set company_id = ${installer.companyId} where id = ${sales.userId}`)).toBe('23503');
+    expect(await refused(drizzleSql`update "user" set company_id = null where id = ${installer.userId}`)).toBe('23514');
+    expect(await refused(drizzleSql`insert into "user" (id, name, email, role) values ('x1', 'No Company', 'x1@example.test', 'installer')`)).toBe('23514');
+    expect(await refused(drizzleSql`update companies set kind = 'wholesaler' where id = ${installer.companyId}`)).toBe('23503');
+    const [row] = await t.db.select().from(user).where(eq(user.id, installer.userId));
+    expect(row).toMatchObject({ role: 'installer', companyId: installer.companyId });
   });
 });

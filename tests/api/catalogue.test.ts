@@ -6,7 +6,9 @@ import { createTestApp, type TestApp } from '../support/app.ts';
 import { seedCatalogue } from '../../seed/catalogue.ts';
 import { parts as demoParts } from '../../seed/data/catalogue.ts';
 import type { PartInput } from '../../shared/contracts/parts.ts';
-import { makers } from '../../server/db/schema/index.ts';
+import { makeMaker, makePart } from '../../seed/factories.ts';
+import { eq } from 'drizzle-orm';
+import { partMedia } from '../../server/db/schema/index.ts';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -81,11 +83,13 @@ describe('GET /api/parts', () => {
   });
 
   it('sorts by maker as the column shows it: by the maker name, not the code', async () => {
-    // Its own catalogue: a maker whose code sorts first but whose name sorts last.
+    // Its own small catalogue: a maker whose code sorts first but whose name sorts last.
     const own = await createTestApp();
     try {
-      await own.db.transaction((tx) => seedCatalogue(tx));
-      await own.db.insert(makers).values({ code: 'AAZ', name: 'Zephyr Works' });
+      await makePart(own.db, { maker: 'HLM', sku: 'HLM-WB-1' });
+      await makePart(own.db, { maker: 'QRB', sku: 'QRB-WB-1' });
+      await makePart(own.db, { maker: 'TVP', sku: 'TVP-WB-1' });
+      await makeMaker(own.db, { code: 'AAZ', name: 'Zephyr Works' });
       await own.services.partsIndex.rebuild(own.db);
       const purchasing = await own.signIn('purchasing');
       await purchasing.post('/api/parts').send(newPart({ sku: 'AAZ-WB-1', makerCode: 'AAZ' })).expect(201);
@@ -174,6 +178,19 @@ describe('GET /api/parts/:sku', () => {
     expect((await agent.get('/api/parts/TST-COST-1').expect(200)).body.data.costCents).toBe(4321);
     await agent.patch('/api/parts/TST-COST-1').send({ ...withoutCost, costCents: null }).expect(200);
     expect((await agent.get('/api/parts/TST-COST-1').expect(200)).body.data.costCents).toBeNull();
+  });
+
+  it('refuses a price that is not a number ("sixty") with a field error and keeps the stored price', async () => {
+    const agent = await t.signIn('purchasing');
+    const input = newPart({ sku: 'TST-PRICE-60', listPriceCents: 6000, costCents: 4000 });
+    await agent.post('/api/parts').send(input).expect(201);
+    for (const bad of [{ listPriceCents: 'sixty' }, { costCents: 'sixty' }, { listPriceCents: '' }]) {
+      const res = await agent.patch('/api/parts/TST-PRICE-60').send({ ...input, ...bad });
+      expect(res.status).toBe(400);
+      expect(res.body.error.details.fields.map((f: { path: string }) => f.path)).toEqual([Object.keys(bad)[0]]);
+    }
+    const kept = (await agent.get('/api/parts/TST-PRICE-60').expect(200)).body.data;
+    expect([kept.listPriceCents, kept.costCents]).toEqual([6000, 4000]);
   });
 
   it('links superseded parts both ways', async () => {
@@ -399,16 +416,16 @@ describe('start-up index check', () => {
   it('rebuilds an empty index from the database and leaves a full one alone', async () => {
     const fresh = await createTestApp();
     try {
-      await fresh.db.transaction((tx) => seedCatalogue(tx));
+      for (let i = 0; i < 7; i++) await makePart(fresh.db);
       const index = fresh.services.partsIndex;
       // The engine restarted empty (the stand-in keeps its index in memory): every part comes back.
       await index.index.deleteAllDocuments().waitTask();
-      expect(await index.ensure(fresh.db)).toEqual({ rebuilt: true, documents: demoParts.length });
-      expect((await index.index.getStats()).numberOfDocuments).toBe(demoParts.length);
+      expect(await index.ensure(fresh.db)).toEqual({ rebuilt: true, documents: 7 });
+      expect((await index.index.getStats()).numberOfDocuments).toBe(7);
       // A second start finds it full and sends nothing.
-      expect(await index.ensure(fresh.db)).toEqual({ rebuilt: false, documents: demoParts.length });
+      expect(await index.ensure(fresh.db)).toEqual({ rebuilt: false, documents: 7 });
       const sales = await fresh.signIn('sales');
-      expect((await sales.get('/api/parts').expect(200)).body.total).toBe(demoParts.length);
+      expect((await sales.get('/api/parts').expect(200)).body.total).toBe(7);
     } finally {
       await fresh.close();
     }
@@ -426,6 +443,12 @@ describe('when search is down', () => {
       expect(res.body.error.code).toBe('search_unavailable');
       const health = await request(down.app).get('/api/health').expect(200);
       expect(health.body).toMatchObject({ status: 'degraded', db: 'up', search: 'down' });
+      // A photo and its search document change together: with the index unreachable, no photo is kept.
+      const part = await makePart(down.db);
+      const purchasing = await down.signIn('purchasing');
+      const upload = await purchasing.post(`/api/parts/${part.sku}/media`).attach('file', await sharp({ create: { width: 64, height: 40, channels: 3, background: '#a8482a' } }).png().toBuffer(), 'p.png');
+      expect(upload.status).toBe(503);
+      expect(await down.db.select().from(partMedia).where(eq(partMedia.partId, part.id))).toEqual([]);
     } finally {
       await down.close();
     }
@@ -460,6 +483,15 @@ describe('CSV export', () => {
     // OWASP CSV injection guidance: a leading apostrophe stops the formula
     expect(res.text).toContain(`"'=HYPERLINK(""http://x.example"",""click"")"`);
     expect(res.text).toMatch(new RegExp(`${input.sku},.*,2,0,`));
+  });
+
+  it('writes list prices as exact decimal dollars', async () => {
+    const agent = await t.signIn('purchasing');
+    const cases: [number, string][] = [[1999, '19.99'], [10, '0.10'], [23456789, '234567.89'], [0, '0.00']];
+    for (const [cents] of cases) await agent.post('/api/parts').send(newPart({ sku: `TST-CSV-${cents}`, listPriceCents: cents })).expect(201);
+    const res = await agent.get('/api/parts/export.csv').query({ q: 'TST-CSV', pageSize: 50 }).expect(200);
+    // Common practice: a CSV money column is a plain decimal with two places, no symbol or grouping.
+    for (const [cents, dollars] of cases) expect(res.text).toMatch(new RegExp(`TST-CSV-${cents},.*,${dollars.replace('.', '\\.')}\\r?$`, 'm'));
   });
 });
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { eq, sql } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../support/app.ts';
-import { seedCatalogue } from '../../seed/catalogue.ts';
+import { DEMO_WAREHOUSES, seedCatalogue } from '../../seed/catalogue.ts';
 import { ranges } from '../../server/db/schema/index.ts';
 import { makeCompany } from '../../seed/factories.ts';
 import { ranges as demoRanges } from '../../seed/data/catalogue.ts';
@@ -39,6 +39,9 @@ describe('POST /api/stack-plans', () => {
     const [{ sum }] = (await t.db.execute(sql`select coalesce(sum(on_hand - reserved), 0)::int as sum from stock_levels s join parts p on p.id = s.part_id where p.sku = ${moduleLine.sku}`)).rows as { sum: number }[];
     expect(moduleLine.available).toBe(sum);
     expect(moduleLine.short).toBe(Math.max(0, 3 - sum));
+    // Each warehouse comes with its name, so a column is more than a code.
+    const names = Object.fromEntries(DEMO_WAREHOUSES.map((w) => [w.code, w.name]));
+    for (const a of moduleLine.availability) expect(a.warehouseName).toBe(names[a.warehouse]);
     expect(moduleLine.reason).toBe('3 modules per stack');
     const feet = p.bom.find((l: { category: string }) => l.category === 'feet');
     expect(feet.packs * feet.packSize).toBe(feet.qtyUnits); // whole packs only (common practice)

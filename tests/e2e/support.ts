@@ -8,6 +8,11 @@ import { onTestFailed } from 'vitest';
 import { createTestApp, type TestApp } from '../support/app.ts';
 import { seedDemo } from '../../seed/demo.ts';
 import { DEMO_PASSWORD } from '../../seed/factories.ts';
+import { createRequire } from 'node:module';
+import { readFileSync } from 'node:fs';
+
+/** axe-core's browser build, evaluated in the page (a script tag would be refused by our own CSP). */
+const AXE_SOURCE = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
 const SCREENSHOTS = path.resolve('test-results/screenshots');
 
@@ -15,7 +20,8 @@ export interface BrowserHarness {
   t: TestApp;
   baseUrl: string;
   browser: Browser;
-  newPage(): Promise<Page>;
+  /** A fresh browser context and page, at desk width unless a viewport is given. */
+  newPage(viewport?: { width: number; height: number }): Promise<Page>;
   close(): Promise<void>;
 }
 
@@ -35,8 +41,8 @@ export async function startBrowserHarness(): Promise<BrowserHarness> {
     t,
     baseUrl,
     browser,
-    async newPage() {
-      const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1366, height: 900 }, locale: 'en-AU' });
+    async newPage(viewport = { width: 1366, height: 900 }) {
+      const context = await browser.newContext({ baseURL: baseUrl, viewport, locale: 'en-AU' });
       const page = await context.newPage();
       onTestFailed(async ({ task }) => {
         mkdirSync(SCREENSHOTS, { recursive: true });
@@ -58,4 +64,15 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('navigation', { name: 'Main' }).waitFor();
+}
+
+/** axe-core's WCAG checks on the page as it stands: the violations, as "rule: selector" lines (none is the goal). */
+export async function axeViolations(page: Page): Promise<string[]> {
+  if (!(await page.evaluate(() => 'axe' in window))) await page.evaluate(AXE_SOURCE);
+  const violations = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run(ctx: Document, opts: object): Promise<{ violations: { id: string; help: string; nodes: { target: unknown[] }[] }[] }> } }).axe;
+    const result = await axe.run(document, { resultTypes: ['violations'] });
+    return result.violations.map((v) => ({ id: v.id, help: v.help, targets: v.nodes.map((n) => String(n.target[0])) }));
+  });
+  return violations.map((v) => `${v.id} (${v.help}): ${v.targets.slice(0, 5).join(', ')}`);
 }

@@ -27,9 +27,9 @@ export interface TestApp {
   /** The same services the app uses (catalogue, search index, …), for arranging test data. */
   services: AppDeps;
   filesDir: string;
-  /** A supertest agent signed in as a new user of that role (installers get a new company unless given one). */
   /** Stops this app's search stand-in, to see how the app copes. */
   stopSearch(): Promise<void>;
+  /** A supertest agent signed in as a new user of that role (installers get a new company unless given one). */
   signIn(role: Role, options?: { companyId?: string; email?: string }): Promise<supertest.Agent & { userId: string; companyId: string | null }>;
   close(): Promise<void>;
 }
@@ -55,8 +55,9 @@ export async function createTestApp(options: { signInLimitPerMinute?: number; cl
     clientDir: options.clientDir ? path.resolve(options.clientDir) : undefined,
     now: options.now,
   };
-  const app = createApp(appOptions);
+  // One set of services: the app serves with them and tests arrange data through the same ones.
   const services = createServices(appOptions);
+  const app = createApp(appOptions, services);
   await services.partsIndex.configure();
 
   return {

@@ -1,6 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import {
+  centsToDollars,
+  dollarsToCents,
   formatCents,
   gstInInclusiveCents,
   gstOnExclusiveCents,
@@ -87,5 +89,28 @@ describe('formatCents', () => {
 
   it('refuses non-numbers', () => {
     expect(() => formatCents(Number.NaN)).toThrow(RangeError);
+  });
+});
+
+describe('dollars typed in a form and written in files', () => {
+  it('reads a typed amount as exact cents, and refuses what is not an amount', () => {
+    // Common practice: $ and thousands separators are ignored; decimal input is exact (no 0.1 + 0.2 drift).
+    expect(dollarsToCents('$1,234.50')).toBe(123450);
+    expect(dollarsToCents('0.29')).toBe(29); // 0.29 × 100 is 28.999999999999996 in binary floating point
+    expect(dollarsToCents('12.3456')).toBe(1234.56);
+    expect(dollarsToCents('  ')).toBeNull();
+    for (const text of ['sixty', '1.2.3', '1e3', '12,34.5x', '--1']) expect(dollarsToCents(text)).toBeNaN();
+  });
+
+  it('writes cents as a plain dollar figure with at least two places', () => {
+    // Common practice for CSV money columns: plain decimal, no symbol or grouping.
+    expect(centsToDollars(123450)).toBe('1234.50');
+    expect(centsToDollars(10)).toBe('0.10');
+    expect(centsToDollars(1234.56)).toBe('12.3456');
+    expect(centsToDollars(0)).toBe('0.00');
+  });
+
+  it('round-trips any whole-cent amount', () => {
+    fc.assert(fc.property(fc.integer({ min: 0, max: 100_000_000 }), (cents) => dollarsToCents(centsToDollars(cents)) === cents));
   });
 });

@@ -2,7 +2,9 @@
 // and the server's field errors must land on the fields the form shows.
 import { describe, expect, it } from 'vitest';
 import { PartInputSchema } from '../../shared/contracts/parts.ts';
-import { emptyPartForm, formPaths, toPartInput, type PartFormValues } from '../../src/features/catalogue/components/part-form-values.ts';
+import { get } from 'react-hook-form';
+import { emptyPartForm, formPaths, partFormResolver, toPartInput, type PartFormValues } from '../../src/features/catalogue/components/part-form-values.ts';
+import { dollarsToCents } from '../../shared/domain/money.ts';
 import { applyServerErrors } from '../../src/lib/form-errors.ts';
 import { ApiError } from '../../src/lib/api-client.ts';
 
@@ -62,5 +64,16 @@ describe('server errors on the form', () => {
     const elsewhere = new ApiError(400, 'invalid', 'Check the part.', { fields: [{ path: 'attributes.nominalV', message: 'Not for cable sets.' }] });
     expect(applyServerErrors(elsewhere, setError, known)).toBe('Check the part.');
     expect(applyServerErrors(new Error('network down'), setError, known)).toBe('Something went wrong. Try again.');
+  });
+});
+
+describe('money fields', () => {
+  it('refuses text that is not an amount ("sixty") beside the field, never sending a blank price', async () => {
+    const values = { ...cableSetForm(), listPriceCents: dollarsToCents('sixty') };
+    // The form sends NaN on, which the contract refuses, rather than null (which would clear the price).
+    expect(Number.isNaN(toPartInput(values, true).listPriceCents)).toBe(true);
+    const result = await partFormResolver(true)(values, undefined, { fields: {}, shouldUseNativeValidation: false } as never);
+    expect((get(result.errors, 'listPriceCents') as { message?: string } | undefined)?.message).toBe('Enter an amount in dollars, e.g. 60 or 59.95.');
+    expect(toPartInput({ ...cableSetForm(), listPriceCents: dollarsToCents('59.95') }, true).listPriceCents).toBe(5995);
   });
 });

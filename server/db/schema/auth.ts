@@ -1,23 +1,38 @@
 // Tables used by better-auth (email + password, admin plugin, database rate limits).
 // Shape follows the library's generated schema; regenerate when auth plugins change.
-import { relations } from 'drizzle-orm';
-import { boolean, integer, bigint, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { relations, sql } from 'drizzle-orm';
+import { boolean, integer, bigint, check, foreignKey, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { companies } from './companies.ts';
 
-export const user = pgTable('user', {
-  id: text().primaryKey(),
-  name: text().notNull(),
-  email: text().notNull().unique(),
-  emailVerified: boolean().notNull().default(false),
-  image: text(),
-  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-  role: text(),
-  banned: boolean().default(false),
-  banReason: text(),
-  banExpires: timestamp({ withTimezone: true }),
-  companyId: uuid().references(() => companies.id),
-});
+export const user = pgTable(
+  'user',
+  {
+    id: text().primaryKey(),
+    name: text().notNull(),
+    email: text().notNull().unique(),
+    emailVerified: boolean().notNull().default(false),
+    image: text(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    role: text(),
+    banned: boolean().default(false),
+    banReason: text(),
+    banExpires: timestamp({ withTimezone: true }),
+    companyId: uuid().references(() => companies.id),
+    /**
+     * The kind of company the role belongs to (staff → the wholesaler, anyone else → a customer
+     * company), kept by the database itself (shared/roles.ts companyKindOf says the same), so that
+     * no write, the auth library's included, can put a user in the wrong kind of company.
+     */
+    companyKind: text({ enum: ['wholesaler', 'installer'] })
+      .notNull()
+      .generatedAlwaysAs(sql`case when role in ('admin', 'purchasing', 'warehouse', 'sales') then 'wholesaler' else 'installer' end`),
+  },
+  (t) => [
+    check('user_has_company', sql`${t.companyId} is not null`),
+    foreignKey({ name: 'user_company_kind_fk', columns: [t.companyId, t.companyKind], foreignColumns: [companies.id, companies.kind] }),
+  ],
+);
 
 export const session = pgTable(
   'session',

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { check, jsonb, numeric, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { check, jsonb, numeric, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 
 /** The wholesaler itself and its customer accounts (installer companies). */
 export const companies = pgTable(
@@ -18,6 +18,8 @@ export const companies = pgTable(
   (t) => [
     check('companies_kind_check', sql`${t.kind} in ('wholesaler', 'installer')`),
     check('companies_discount_range', sql`${t.tierDiscountPct} >= 0 and ${t.tierDiscountPct} < 100`),
+    // The target of user_company_kind_fk: a user's company and the kind their role needs, together.
+    unique('companies_id_kind').on(t.id, t.kind),
   ],
 );
 

@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useRef, useState, type KeyboardEvent } from 'react';
-import { Link, useNavigate } from 'react-router';
+import { Link, useLocation, useNavigate } from 'react-router';
 import { useQueryClient } from '@tanstack/react-query';
 import type { SortingState } from '@tanstack/react-table';
 import type { PartListQuery } from '@shared/contracts/parts.ts';
@@ -10,6 +10,7 @@ import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
 import { hasAbility, useMe } from '@/features/auth/api/get-me.ts';
 import { formatNumber } from '@/lib/format.ts';
+import { CATALOGUE_SEARCH_ID, isTyping, SHORTCUT_LABELS, useSearchShortcut } from '@/lib/search-shortcut.ts';
 import { partsExportHref, partsQueryOptions, useParts, type PartFilters } from '@/features/catalogue/api/get-parts.ts';
 import { useMakers } from '@/features/catalogue/api/get-makers.ts';
 import { useRanges } from '@/features/catalogue/api/get-ranges.ts';
@@ -22,8 +23,6 @@ const PAGE_SIZE = 50;
 const TYPING_PAUSE_MS = 120;
 
 const FILTER_TITLES: Record<FilterKey, string> = { category: 'Category', maker: 'Maker', range: 'Range', lifecycle: 'Lifecycle', inStock: 'Availability' };
-
-const isTyping = (el: Element | null) => !!el && (el.matches('input, textarea, select, [contenteditable=""], [contenteditable="true"]') || (el as HTMLElement).isContentEditable);
 
 export function CatalogueRoute() {
   const { data: me } = useMe();
@@ -62,19 +61,30 @@ export function CatalogueRoute() {
   const query: PartFilters = { ...filters, pageSize: PAGE_SIZE };
   const { data, error, isLoading, isFetching, isPlaceholderData } = useParts(query);
 
+  // Arriving by the search shortcut puts the cursor in the box; an ordinary visit leaves focus
+  // at the top of the page, so the skip link and the navigation come first.
+  const location = useLocation();
+  const arrivedByShortcut = (location.state as { focusSearch?: boolean } | null)?.focusSearch === true;
   useEffect(() => {
-    search.current?.focus();
+    if (arrivedByShortcut) search.current?.focus();
+  }, [arrivedByShortcut]);
+  const shortcut = useSearchShortcut();
+  // Typing while focus is not in a field goes into the search box, so a scanner works the moment
+  // the page opens. That is a single-key shortcut too, so it follows the same setting (only
+  // with "/"; WCAG 2.1.4).
+  useEffect(() => {
+    if (shortcut !== '/') return;
     const onKey = (e: globalThis.KeyboardEvent) => {
-      if (e.key !== '/' || e.ctrlKey || e.metaKey || e.altKey || isTyping(document.activeElement)) return;
-      e.preventDefault();
+      if (isTyping(document.activeElement) || e.key.length !== 1 || e.key === '/' || e.key === ' ' || e.ctrlKey || e.metaKey || e.altKey) return;
+      // Focus moves before the key is handled, so the character lands in the box.
       search.current?.focus();
-      search.current?.select();
     };
     document.addEventListener('keydown', onKey);
     return () => document.removeEventListener('keydown', onKey);
-  }, []);
+  }, [shortcut]);
+  const [filtersOpen, setFiltersOpen] = useState(false);
 
-  const firstRow = () => results.current?.querySelector<HTMLElement>('tbody tr[tabindex]');
+  const firstRow = () => results.current?.querySelector<HTMLElement>('tbody [data-row-action]');
 
   const onSearchKey = async (e: KeyboardEvent<HTMLInputElement>) => {
     if (e.key === 'ArrowDown') {
@@ -108,7 +118,8 @@ export function CatalogueRoute() {
   const pick = (key: FilterKey, value: string | undefined) => update({ [key]: value } as PartFilters);
   const active = FILTER_KEYS.filter((k) => filters[k] !== undefined);
 
-  const sorting: SortingState = filters.sort && filters.sort !== 'relevance' ? [{ id: filters.sort, desc: filters.dir === 'desc' }] : [];
+  // Without words the server lists by SKU (A→Z), and the table says so (aria-sort).
+  const sorting: SortingState = filters.sort && filters.sort !== 'relevance' ? [{ id: filters.sort, desc: filters.dir === 'desc' }] : urlQ ? [] : [{ id: 'sku', desc: false }];
   const onSortingChange = (s: SortingState) =>
     s[0] ? update({ sort: s[0].id as PartListQuery['sort'], dir: s[0].desc ? 'desc' : 'asc' }) : update({ sort: undefined, dir: undefined });
 
@@ -146,14 +157,12 @@ export function CatalogueRoute() {
         </>
       }
     >
-      <div className="grid gap-4 md:grid-cols-[12rem_minmax(0,1fr)]">
-        <aside className="md:sticky md:top-4 md:self-start">
-          <FacetPanel facets={data?.facets} filters={filters} label={label} onPick={pick} />
-        </aside>
-        <div className="min-w-0">
+      <div className="grid gap-x-4 md:grid-cols-[12rem_minmax(0,1fr)] md:grid-rows-[auto_1fr]">
+        <div className="min-w-0 md:col-start-2 md:row-start-1">
           <div role="search" className="mb-3">
             <TextField
               ref={search}
+              id={CATALOGUE_SEARCH_ID}
               label="Search the catalogue"
               type="search"
               autoComplete="off"
@@ -161,8 +170,14 @@ export function CatalogueRoute() {
               placeholder="e.g. cable cover, HLM-TOR-M5, 0614141100012"
               hint={
                 <>
-                  Press <kbd className="rounded border border-line bg-paper px-1">/</kbd> to search from anywhere, <kbd className="rounded border border-line bg-paper px-1">↓</kbd> to move into the
-                  results. Scan a barcode to open its part.
+                  {shortcut === 'off' ? (
+                    'The search shortcut is off (your menu can turn it on). '
+                  ) : (
+                    <>
+                      Press <kbd className="rounded border border-line bg-paper px-1">{SHORTCUT_LABELS[shortcut]}</kbd> to search from anywhere (change it in your menu).{' '}
+                    </>
+                  )}
+                  Press <kbd className="rounded border border-line bg-paper px-1">↓</kbd> to move into the results. Scan a barcode to open its part.
                 </>
               }
               value={text}
@@ -172,6 +187,9 @@ export function CatalogueRoute() {
           </div>
 
           <div className="mb-2 flex flex-wrap items-center gap-2 text-sm">
+            <Button className="md:hidden" aria-expanded={filtersOpen} aria-controls="catalogue-filters" onClick={() => setFiltersOpen((o) => !o)}>
+              {filtersOpen ? 'Hide filters' : `Filters${active.length ? ` (${active.length})` : ''}`}
+            </Button>
             <p data-testid="result-count" aria-live="polite" className="font-semibold">
               {data ? `${formatNumber(total)} ${total === 1 ? 'part' : 'parts'}` : isLoading ? 'Searching…' : ''}
             </p>
@@ -204,12 +222,18 @@ export function CatalogueRoute() {
             </div>
           )}
 
+        </div>
+        {/* On a phone the filters fold away behind a button under the search box, so the search comes first (and comes first in the tab order on a desk too). */}
+        <aside id="catalogue-filters" className={`md:sticky md:top-4 md:col-start-1 md:row-span-2 md:row-start-1 md:self-start ${filtersOpen ? 'mb-3' : 'max-md:hidden'}`}>
+          <FacetPanel facets={data?.facets} filters={filters} label={label} onPick={pick} />
+        </aside>
+        <div className="min-w-0 md:col-start-2 md:row-start-2">
           <div ref={results} onKeyDown={onResultsKey}>
-            <PartsTable data={data?.data ?? []} sorting={sorting} onSortingChange={onSortingChange} onOpen={(p) => navigate(paths.part.href(p.sku))} empty={empty} />
+            <PartsTable data={data?.data ?? []} sorting={sorting} onSortingChange={onSortingChange} empty={empty} />
           </div>
 
           {data && total > 0 && (
-            <nav aria-label="Pages" className="mt-2 flex items-center justify-between text-sm">
+            <nav aria-label="Pages" className="mt-2 flex flex-wrap items-center justify-between gap-2 text-sm">
               <p className="text-ink-soft">
                 Page <span className="num">{page}</span> of <span className="num">{pages}</span> · <span className="num">{formatNumber(total)}</span> {total === 1 ? 'part' : 'parts'}
               </p>

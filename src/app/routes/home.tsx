@@ -6,12 +6,13 @@ import { NAV } from '@/config/nav.ts';
 import { Page, Card } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 
+/** What each role can do here today: only work that has a screen. */
 const INTRO: Record<Role, string> = {
-  admin: 'Look after who can sign in, what each role may do, and the business settings.',
-  purchasing: 'Keep the catalogue complete and supplier costs current.',
-  warehouse: 'Receive, pick and label kits, and keep the stock ledger true.',
-  sales: 'Plan systems and look after jobs for every trade account.',
-  installer: 'Plan battery systems for your sites and order exactly the parts they need.',
+  admin: 'Look after who can sign in, with which role and for which company.',
+  purchasing: 'Keep the catalogue complete (parts, prices, costs and supplier codes) and the ranges’ BOM rules current.',
+  warehouse: 'Find any part by name, code or barcode, and see its stock in each warehouse.',
+  sales: 'Find parts and plan battery systems for every trade account, and keep their draft plans.',
+  installer: 'Plan battery systems for your sites: the bill of materials, what is in stock, and drafts you can reopen.',
 };
 
 export function HomeRoute() {

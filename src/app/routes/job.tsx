@@ -2,7 +2,7 @@ import { Link, useParams } from 'react-router';
 import { Page, Card } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
-import { formatNumber, formatProseDate } from '@/lib/format.ts';
+import { formatNumber, formatDate } from '@/lib/format.ts';
 import { useJob } from '@/features/jobs/api/get-job.ts';
 import { JobStatusTag } from '@/features/jobs/components/job-status.tsx';
 import { JobActions } from '@/features/jobs/components/job-actions.tsx';
@@ -43,7 +43,7 @@ export function JobRoute() {
           <span>
             {j.company.name}
             {site ? ` · site ${site}` : ''}
-            {j.preferredWarehouse ? ` · from ${j.preferredWarehouse.name}` : ''} · created {formatProseDate(j.createdAt)}
+            {j.preferredWarehouse ? ` · from ${j.preferredWarehouse.name}` : ''} · created {formatDate(j.createdAt)}
           </span>
         </span>
       }
@@ -55,7 +55,7 @@ export function JobRoute() {
     >
       <div className="space-y-4">
         <JobActions job={j} />
-        {j.holdExpiresAt && j.status === 'draft' && <Notice tone="caution">Stock is held for this quote until {formatProseDate(j.holdExpiresAt)}. Order the job to keep it.</Notice>}
+        {j.holdExpiresAt && j.status === 'draft' && <Notice tone="caution">Stock is held for this quote until {formatDate(j.holdExpiresAt)}. Order the job to keep it.</Notice>}
         {j.backorders.length > 0 && (
           <Notice tone="caution" title="Waiting for stock">
             {j.backorders.reduce((s, b) => s + b.qty, 0)} units are backordered; they are reserved for this job as soon as they arrive, in queue order.

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link, useNavigate } from 'react-router';
+import { Link } from 'react-router';
 import { JOB_STATUSES, JOB_STATUS_LABELS, type JobStatus } from '@shared/contracts/jobs.ts';
 import { Page } from '@/components/ui/page.tsx';
 import { Pager } from '@/components/ui/pager.tsx';
@@ -18,7 +18,6 @@ const PAGE_SIZE = 50;
 
 export function JobsRoute() {
   const { data: me } = useMe();
-  const navigate = useNavigate();
   const { get, set, page, setPage } = useUrlFilters();
   const staff = hasAbility(me, 'customers.view');
   const { data: customers = [] } = useCustomers(staff);
@@ -68,7 +67,7 @@ export function JobsRoute() {
       </form>
       {problem && <Notice tone="danger">{problem}</Notice>}
       {jobs.error && <Notice tone="danger">{jobs.error.message}</Notice>}
-      {jobs.isLoading ? <p className="text-sm text-ink-soft">Loading jobs…</p> : <JobsTable jobs={jobs.data?.data ?? []} showCustomer={staff} onOpen={(j) => navigate(paths.job.href(j.id))} />}
+      {jobs.isLoading ? <p className="text-sm text-ink-soft">Loading jobs…</p> : <JobsTable jobs={jobs.data?.data ?? []} showCustomer={staff} />}
       <Pager page={page} pageSize={PAGE_SIZE} total={total} noun={total === 1 ? 'job' : 'jobs'} onPage={setPage} labels={['← Newer', 'Older →']} />
     </Page>
   );

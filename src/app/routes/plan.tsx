@@ -3,7 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import { Page } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
-import { formatProseDate } from '@/lib/format.ts';
+import { formatDate } from '@/lib/format.ts';
 import { useRanges } from '@/features/catalogue/api/get-ranges.ts';
 import { partQueryOptions } from '@/features/catalogue/api/get-part.ts';
 import { useSavedPlan } from '@/features/planner/api/get-saved-plan.ts';
@@ -71,7 +71,7 @@ export function SavedPlanRoute() {
       subtitle={
         <>
           Draft for {s.companyName}
-          {site ? ` · site ${site}` : ''} · {s.rangeName} · saved by {s.createdBy} on {formatProseDate(s.createdAt)}
+          {site ? ` · site ${site}` : ''} · {s.rangeName} · saved by {s.createdBy} on {formatDate(s.createdAt)}
         </>
       }
       actions={

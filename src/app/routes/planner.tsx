@@ -23,6 +23,7 @@ import { PlanErrorNotice } from '@/features/planner/components/plan-error.tsx';
 import { PlanActions } from '@/features/planner/components/plan-actions.tsx';
 import { PlanSheet } from '@/features/planner/components/plan-sheet.tsx';
 import { SavePlanForm } from '@/features/planner/components/save-plan-form.tsx';
+import { formatDate } from '@/lib/format.ts';
 
 /** Long enough to skip the keystrokes in between; the browser's own figures never wait. */
 const CONFIRM_PAUSE_MS = 200;
@@ -120,7 +121,7 @@ export function PlannerRoute() {
             </Card>
 
             <p className="hidden text-sm print:block">
-              {detail.name} ({detail.code}){inverter ? ` with ${inverter.name}` : ''}, printed {new Date().toLocaleDateString('en-AU', { day: 'numeric', month: 'short', year: 'numeric' })}
+              {detail.name} ({detail.code}){inverter ? ` with ${inverter.name}` : ''}, printed {formatDate(new Date())}
             </p>
 
             {!request && <Notice>{params.mode === 'target' ? 'Enter the usable energy the customer needs, in kWh.' : 'Enter a module count per stack.'}</Notice>}

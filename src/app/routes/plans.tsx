@@ -1,4 +1,4 @@
-import { Link, useNavigate } from 'react-router';
+import { Link } from 'react-router';
 import { Page } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
@@ -8,7 +8,6 @@ import { SavedPlansTable } from '@/features/planner/components/saved-plans-table
 
 export function SavedPlansRoute() {
   const { data: me } = useMe();
-  const navigate = useNavigate();
   const plans = useSavedPlans();
   const staff = hasAbility(me, 'customers.view');
   return (
@@ -22,7 +21,7 @@ export function SavedPlansRoute() {
       }
     >
       {plans.error && <Notice tone="danger">{plans.error.message}</Notice>}
-      {plans.isLoading ? <p className="text-sm text-ink-soft">Loading plans…</p> : <SavedPlansTable plans={plans.data ?? []} showCustomer={staff} onOpen={(p) => navigate(paths.plan.href(p.id))} />}
+      {plans.isLoading ? <p className="text-sm text-ink-soft">Loading plans…</p> : <SavedPlansTable plans={plans.data ?? []} showCustomer={staff} />}
     </Page>
   );
 }

@@ -32,7 +32,7 @@ export function SignInRoute() {
 
   return (
     <div className="flex min-h-screen items-center justify-center p-6">
-      <div className="w-full max-w-sm">
+      <main className="w-full max-w-sm">
         <div className="mb-6 flex items-center gap-3">
           <Logo className="h-10 w-10" />
           <div>
@@ -62,7 +62,7 @@ export function SignInRoute() {
           </Button>
           <p className="text-xs text-ink-soft">Accounts are created by your administrator. Forgotten your password? Ask them to set a new one.</p>
         </form>
-      </div>
+      </main>
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import { Link, useNavigate } from 'react-router';
+import { Link } from 'react-router';
 import { Page } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { Pager } from '@/components/ui/pager.tsx';
@@ -15,7 +15,6 @@ const linkClass = 'inline-flex items-center rounded-md border border-line bg-car
 
 export function StockRoute() {
   const { data: me } = useMe();
-  const navigate = useNavigate();
   const { get, set, page, setPage } = useUrlFilters();
   const sku = get('sku') ?? '';
   const warehouse = get('warehouse') ?? '';
@@ -49,7 +48,7 @@ export function StockRoute() {
         </SelectField>
       </form>
       {stock.error && <Notice tone="danger">{stock.error.message}</Notice>}
-      {stock.isLoading ? <p className="text-sm text-ink-soft">Loading stock…</p> : <LevelsTable levels={stock.data?.data ?? []} onOpen={(l) => navigate(paths.stockMovements.href(new URLSearchParams({ sku: l.sku }).toString()))} />}
+      {stock.isLoading ? <p className="text-sm text-ink-soft">Loading stock…</p> : <LevelsTable levels={stock.data?.data ?? []} />}
       <Pager page={page} pageSize={PAGE_SIZE} total={total} noun="rows" onPage={setPage} />
     </Page>
   );

@@ -6,7 +6,7 @@ export function Page({ title, actions, children, subtitle }: { title: string; su
     document.title = `${title} · Stackyard`;
   }, [title]);
   return (
-    <div className="mx-auto max-w-7xl px-4 py-5 sm:px-6">
+    <div className="mx-auto max-w-7xl px-4 py-4 sm:px-6 sm:py-5">
       <header className="mb-4 flex flex-wrap items-end justify-between gap-3 border-b border-line pb-3">
         <div>
           <h1 className="text-xl font-semibold tracking-tight">{title}</h1>

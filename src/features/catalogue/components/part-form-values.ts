@@ -73,6 +73,8 @@ export function partToForm(p: PartDetail): PartFormValues {
 const blank = (v: unknown) => v === undefined || v === null || (typeof v === 'string' && v.trim() === '') || (typeof v === 'number' && Number.isNaN(v));
 const orNull = <T,>(v: T) => (blank(v) ? null : v);
 const orUndefined = <T,>(v: T) => (blank(v) ? undefined : v);
+/** A money box: empty is "none", but text that is not an amount (NaN) goes on to be refused, never saved as a blank. */
+const money = (v: number | null | undefined) => (v === undefined || v === null ? null : v);
 
 /** The form's values in the contract's shape. Cost is left out for actors who may not see it. */
 export function toPartInput(v: PartFormValues, withCost: boolean): PartInput {
@@ -111,13 +113,13 @@ export function toPartInput(v: PartFormValues, withCost: boolean): PartInput {
     ipRating: orNull(v.ipRating?.trim().toUpperCase()),
     lifecycle: v.lifecycle,
     supersededBySku: v.lifecycle === 'superseded' ? orNull(v.supersededBySku?.trim()) : null,
-    listPriceCents: orNull(v.listPriceCents),
+    listPriceCents: money(v.listPriceCents),
     attributes,
     dangerousGoods,
     compliance: complianceEmpty ? null : compliance,
     supplierSkus: (v.supplierSkus ?? []).filter((s) => !blank(s.supplier) || !blank(s.sku)).map((s) => ({ supplier: s.supplier.trim().toUpperCase(), sku: s.sku.trim() })),
   };
-  if (withCost) input.costCents = orNull(v.costCents);
+  if (withCost) input.costCents = money(v.costCents);
   return input as PartInput;
 }
 
@@ -131,6 +133,7 @@ function friendlyMessage(raw: unknown): string | undefined {
   if (path === 'dangerousGoods.whRating') return 'Enter the Wh rating (nominal V × Ah).';
   if (path === 'attributes.category' || (path === 'attributes' && iss.code === 'invalid_union')) return 'Choose a category.';
   if (path === 'massKg' && iss.input === undefined) return 'Enter the mass in kg.';
+  if ((path === 'listPriceCents' || path === 'costCents') && iss.code === 'invalid_type') return 'Enter an amount in dollars, e.g. 60 or 59.95.';
   if (path === 'packSize' && iss.input === undefined) return 'Enter the pack size (1 for a single item).';
   if (/^supplierSkus\.\d+\.supplier$/.test(path)) return 'Enter the supplier’s code, e.g. KESTREL.';
   if (/^supplierSkus\.\d+\.sku$/.test(path)) return 'Enter the supplier’s SKU for this part.';

@@ -8,6 +8,7 @@ import { FieldError, SelectField, TextField, optionsOf } from '@/components/ui/f
 import { Button } from '@/components/ui/button.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { applyServerErrors } from '@/lib/form-errors.ts';
+import { centsToDollars, dollarsToCents } from '@shared/domain/money.ts';
 import { AttributeFields } from './attribute-fields.tsx';
 import { emptyPartForm, formPaths, partFormResolver, partToForm, type PartFormValues } from './part-form-values.ts';
 
@@ -99,7 +100,7 @@ export function PartForm({ part, makers, withCost, saving, onSave, cancelHref }:
             <Controller
               control={control}
               name="costCents"
-              render={({ field }) => <MoneyField label="Cost ($, ex GST)" cents={field.value ?? null} onCents={field.onChange} onBlur={field.onBlur} decimals={4} error={err('costCents')} hint="Up to 4 decimals." />}
+              render={({ field }) => <MoneyField label="Cost ($, ex GST)" cents={field.value ?? null} onCents={field.onChange} onBlur={field.onBlur} error={err('costCents')} hint="Up to 4 decimals." />}
             />
           )}
           <TextField label="Mass (kg)" mono type="number" step="any" min={0} error={err('massKg')} {...register('massKg', { setValueAs: toNumber })} />
@@ -233,8 +234,8 @@ function TextArea({ label, error, className = '', ...props }: { label: string; e
 }
 
 /** Dollars in the box, cents in the form (a cost may carry fractions of a cent). */
-function MoneyField({ label, cents, onCents, onBlur, error, hint, decimals = 2 }: { label: string; cents: number | null; onCents: (c: number | null) => void; onBlur: () => void; error?: string; hint?: string; decimals?: number }) {
-  const [text, setText] = useState(cents === null || cents === undefined ? '' : (cents / 100).toFixed(cents % 1 === 0 ? 2 : decimals));
+function MoneyField({ label, cents, onCents, onBlur, error, hint }: { label: string; cents: number | null; onCents: (c: number | null) => void; onBlur: () => void; error?: string; hint?: string }) {
+  const [text, setText] = useState(cents === null || cents === undefined || Number.isNaN(cents) ? '' : centsToDollars(cents));
   return (
     <TextField
       label={label}
@@ -247,10 +248,8 @@ function MoneyField({ label, cents, onCents, onBlur, error, hint, decimals = 2 }
       onBlur={onBlur}
       onChange={(e) => {
         setText(e.target.value);
-        const raw = e.target.value.replace(/[$,\s]/g, '');
-        if (raw === '') return onCents(null);
-        const dollars = /^-?\d*\.?\d*$/.test(raw) ? Number(raw) : NaN;
-        onCents(Number.isNaN(dollars) ? NaN : Math.round(dollars * 10_000) / 100);
+        // Unparseable text stays NaN, which the form refuses beside the field (never a blank).
+        onCents(dollarsToCents(e.target.value));
       }}
     />
   );

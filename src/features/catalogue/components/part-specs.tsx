@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import type { PartDetail } from '@shared/contracts/parts.ts';
 import { ATTRIBUTE_FIELDS, type AttributeField } from '@shared/contracts/part-attributes.ts';
 import { Card } from '@/components/ui/page.tsx';
-import { formatProseDate, withUnit } from '@/lib/format.ts';
+import { formatDate, withUnit } from '@/lib/format.ts';
 
 /** Attributes about size, fit and fixing rather than electricity; everything else is electrical. */
 const PHYSICAL_KEYS = new Set(['unitsPerSet', 'heightMm', 'adjustmentMm', 'loadRatingKg', 'fixing', 'unitsSupported', 'lengthM', 'material', 'purpose', 'connectorType', 'connector']);
@@ -78,7 +78,7 @@ export function PartSpecs({ part }: { part: PartDetail }) {
   const compliance: Row[] = [];
   if (c) {
     if (c.certificationListing) compliance.push(['Listing', c.certificationListing, false]);
-    if (c.certificationDate) compliance.push(['Certified', formatProseDate(c.certificationDate), false]);
+    if (c.certificationDate) compliance.push(['Certified', formatDate(c.certificationDate), false]);
     if (c.enclosureIp) compliance.push(['Enclosure', c.enclosureIp]);
     if (c.touchSafeConnectors !== undefined) compliance.push(['Touch-safe connectors', c.touchSafeConnectors ? 'Yes' : 'No', false]);
   }

@@ -1,5 +1,5 @@
 import type { Job } from '@shared/contracts/jobs.ts';
-import { formatProseDate } from '@/lib/format.ts';
+import { formatDate } from '@/lib/format.ts';
 
 /** Where the job's units are held (warehouse and bin) and what it is queued for. */
 export function JobStock({ job }: { job: Job }) {
@@ -21,7 +21,7 @@ export function JobStock({ job }: { job: Job }) {
                 <span className="num text-ink-soft">
                   {r.warehouse} · bin {r.bin}
                   {r.needsTransfer && <span className="ml-2 rounded border border-amber/50 bg-amber-soft px-1 text-xs text-[#7a4f12]">⇄ needs transfer</span>}
-                  {r.expiresAt && <span className="ml-2 text-xs">quote hold until {formatProseDate(r.expiresAt)}</span>}
+                  {r.expiresAt && <span className="ml-2 text-xs">quote hold until {formatDate(r.expiresAt)}</span>}
                 </span>
               </li>
             ))}
@@ -40,7 +40,7 @@ export function JobStock({ job }: { job: Job }) {
               <li key={b.sku} className="flex flex-wrap items-baseline justify-between gap-2 px-3 py-1.5">
                 <span className="num font-semibold text-danger">◌ {b.qty} × {b.sku}</span>
                 <span className="text-ink-soft">
-                  No. {b.position} in the queue{b.unitsAhead ? ` (${b.unitsAhead} units ahead)` : ''} · since {formatProseDate(b.since)}
+                  No. {b.position} in the queue{b.unitsAhead ? ` (${b.unitsAhead} units ahead)` : ''} · since {formatDate(b.since)}
                 </span>
               </li>
             ))}

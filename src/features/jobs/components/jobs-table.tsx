@@ -2,12 +2,12 @@ import { useMemo } from 'react';
 import { Link } from 'react-router';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { JobSummary } from '@shared/contracts/jobs.ts';
-import { DataTable } from '@/components/ui/data-table.tsx';
+import { DataTable, ROW_ACTION } from '@/components/ui/data-table.tsx';
 import { paths } from '@/config/paths.ts';
 import { JobStatusTag } from './job-status.tsx';
 
 /** Jobs, newest first; a row opens the job. */
-export function JobsTable({ jobs, onOpen, showCustomer }: { jobs: JobSummary[]; onOpen: (j: JobSummary) => void; showCustomer: boolean }) {
+export function JobsTable({ jobs, showCustomer }: { jobs: JobSummary[]; showCustomer: boolean }) {
   const columns = useMemo<ColumnDef<JobSummary>[]>(
     () => [
       {
@@ -15,7 +15,7 @@ export function JobsTable({ jobs, onOpen, showCustomer }: { jobs: JobSummary[]; 
         accessorKey: 'reference',
         header: 'Reference',
         cell: (c) => (
-          <Link to={paths.job.href(c.row.original.id)} tabIndex={-1} onClick={(e) => e.stopPropagation()} className="font-semibold hover:text-copper hover:underline">
+          <Link {...ROW_ACTION} to={paths.job.href(c.row.original.id)} className="font-semibold hover:text-copper hover:underline">
             {c.row.original.reference}
           </Link>
         ),
@@ -41,5 +41,5 @@ export function JobsTable({ jobs, onOpen, showCustomer }: { jobs: JobSummary[]; 
     ],
     [showCustomer],
   );
-  return <DataTable label="Jobs" data={jobs} columns={columns} getRowId={(j) => j.id} onOpen={onOpen} dense empty="No jobs match. Clear the filters or order a saved plan." />;
+  return <DataTable label="Jobs" data={jobs} columns={columns} getRowId={(j) => j.id} dense empty="No jobs match. Clear the filters or order a saved plan." />;
 }

@@ -6,9 +6,11 @@ import { StatusTag } from '@/components/ui/notice.tsx';
 import { formatNumber } from '@/lib/format.ts';
 import { formatCents } from '@shared/domain/money.ts';
 import { warehousesOf, type ShownLine, type ShownPlan } from '../lib/plan-view.ts';
-import { SkuLink } from '@/features/catalogue/components/sku-link.tsx';
+import { SkuLink } from '@/components/ui/sku-link.tsx';
 
 const right: ColumnMeta = { align: 'right' };
+/** On a phone the BOM keeps SKU, part, quantity and availability; packs, reasons and depots need the width. */
+const PHONE_HIDDEN = 'max-sm:hidden';
 
 export function StockStatus({ line }: { line: ShownLine }) {
   if (!line.stock) return <span className="text-xs text-ink-soft">checking…</span>;
@@ -21,23 +23,30 @@ export function StockStatus({ line }: { line: ShownLine }) {
 
 /** The bill of materials: what to order, how it is packed, why each line is there, and whether stock covers it. */
 export function PlanBomTable({ plan }: { plan: ShownPlan }) {
-  const warehouseKey = warehousesOf(plan).join('|');
+  // Codes head the columns (they fit a phone); the full name is each header's accessible name.
+  const names = new Map(plan.bom.flatMap((l) => l.stock?.availability ?? []).map((a) => [a.warehouse, a.warehouseName]));
+  const warehouseKey = warehousesOf(plan)
+    .map((code) => `${code}\t${names.get(code) ?? code}`)
+    .join('|');
   const columns = useMemo<ColumnDef<ShownLine>[]>(() => {
-    const warehouses = warehouseKey ? warehouseKey.split('|') : [];
+    const warehouses = warehouseKey ? warehouseKey.split('|').map((w) => w.split('\t') as [string, string]) : [];
     return [
       {
         id: 'sku',
         accessorKey: 'sku',
         header: 'SKU',
+        meta: { className: PHONE_HIDDEN },
         cell: (c) => <SkuLink sku={c.row.original.sku} />,
       },
       {
         id: 'name',
         accessorKey: 'name',
         header: 'Part',
-        meta: { className: 'min-w-40' },
+        meta: { className: 'sm:min-w-40' },
         cell: (c) => (
           <span>
+            {/* On a phone the SKU heads the part's cell instead of taking a column. */}
+            <SkuLink sku={c.row.original.sku} className="block text-xs sm:hidden" />
             {c.row.original.name}
             <span className="block text-xs text-ink-soft">{CATEGORY_LABELS[c.row.original.category as CategoryCode] ?? c.row.original.category}</span>
           </span>
@@ -46,7 +55,11 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
       {
         id: 'qty',
         accessorKey: 'qtyUnits',
-        header: 'Qty (units)',
+        header: () => (
+          <span>
+            Qty<span className="max-sm:hidden"> (units)</span>
+          </span>
+        ),
         meta: right,
         cell: (c) => (
           <span className="num whitespace-nowrap">
@@ -59,7 +72,7 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         id: 'packs',
         header: 'Packs × size',
         enableSorting: false,
-        meta: right,
+        meta: { ...right, className: PHONE_HIDDEN },
         cell: (c) => (
           <span className="num whitespace-nowrap">
             {formatNumber(c.row.original.packs)} × {formatNumber(c.row.original.packSize)}
@@ -85,7 +98,7 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         accessorKey: 'reason',
         header: 'Why',
         enableSorting: false,
-        meta: { className: 'min-w-48 text-ink-soft' },
+        meta: { className: `min-w-48 text-ink-soft ${PHONE_HIDDEN}` },
         cell: (c) => (
           <span className="text-xs leading-snug">
             {c.row.original.ruleNumbers.length > 0 && <span className="font-semibold text-ink">{c.row.original.ruleNumbers.length === 1 ? 'Rule' : 'Rules'} {c.row.original.ruleNumbers.join(', ')}: </span>}
@@ -93,11 +106,16 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
           </span>
         ),
       },
-      ...warehouses.map<ColumnDef<ShownLine>>((wh) => ({
+      ...warehouses.map<ColumnDef<ShownLine>>(([wh, name]) => ({
         id: `wh-${wh}`,
-        header: wh,
+        header: () => (
+          <span title={name}>
+            <span aria-hidden="true">{wh}</span>
+            <span className="sr-only">{name}</span>
+          </span>
+        ),
         enableSorting: false,
-        meta: right,
+        meta: { ...right, className: PHONE_HIDDEN },
         cell: (c) => {
           const a = c.row.original.stock?.availability.find((x) => x.warehouse === wh);
           return <span className="num text-ink-soft">{a ? formatNumber(a.available) : '0'}</span>;
@@ -105,12 +123,17 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
       })),
       {
         id: 'available',
-        header: 'Available',
+        header: () => (
+          <>
+            <span className="sm:hidden">Stock</span>
+            <span className="max-sm:hidden">Available</span>
+          </>
+        ),
         enableSorting: false,
         meta: right,
         cell: (c) => (
-          <span className="inline-flex items-center gap-2">
-            {c.row.original.stock && <span className="num">{formatNumber(c.row.original.stock.available)}</span>}
+          <span className="inline-flex flex-wrap items-center justify-end gap-x-2 gap-y-0.5">
+            {c.row.original.stock && <span className="num max-sm:hidden">{formatNumber(c.row.original.stock.available)}</span>}
             <StockStatus line={c.row.original} />
           </span>
         ),

@@ -68,6 +68,10 @@ export function PlanFigures({ plan, inverter }: { plan: ShownPlan; inverter: Inv
   const heavyFloor = suspended && (plan.floorLoadKpa > RESIDENTIAL_FLOOR_KPA || plan.footLoadKn > RESIDENTIAL_FLOOR_POINT_KN);
   return (
     <div className="space-y-3">
+      {/* Screen readers hear the headline figures whenever a change to the plan moves them. */}
+      <p className="sr-only" aria-live="polite" aria-atomic="true" data-testid="plan-announcement">
+        {`Plan: ${plural(plan.stacks, 'stack')} of ${plural(plan.modulesPerStack, 'module')}, ${formatNumber(plan.usableKwh)} kWh usable, DVC-${plan.dvc}${plan.inverterFit && inverter ? (plan.inverterFit.fits ? ', fits the inverter' : ', does not fit the inverter') : ''}.`}
+      </p>
       <dl className="grid grid-cols-2 gap-x-3 gap-y-2 xl:grid-cols-3" aria-label="Plan figures">
         <Figure term="Layout">
           <span className="num">{plural(plan.stacks, 'stack')}</span> × <span className="num">{plural(plan.modulesPerStack, 'module')}</span>

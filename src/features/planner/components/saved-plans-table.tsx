@@ -2,12 +2,14 @@ import { useMemo } from 'react';
 import { Link } from 'react-router';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { SavedPlan } from '@shared/contracts/stack-plans.ts';
-import { DataTable } from '@/components/ui/data-table.tsx';
+import { DataTable, ROW_ACTION } from '@/components/ui/data-table.tsx';
 import { paths } from '@/config/paths.ts';
-import { formatNumber } from '@/lib/format.ts';
+import { formatDate, formatNumber } from '@/lib/format.ts';
+
+const NEWEST_FIRST = [{ id: 'created', desc: true }];
 
 /** Draft plans, newest first; a row opens the plan recomputed with today's stock. */
-export function SavedPlansTable({ plans, onOpen, showCustomer }: { plans: SavedPlan[]; onOpen: (p: SavedPlan) => void; showCustomer: boolean }) {
+export function SavedPlansTable({ plans, showCustomer }: { plans: SavedPlan[]; showCustomer: boolean }) {
   const columns = useMemo<ColumnDef<SavedPlan>[]>(
     () => [
       {
@@ -15,19 +17,24 @@ export function SavedPlansTable({ plans, onOpen, showCustomer }: { plans: SavedP
         accessorKey: 'name',
         header: 'Plan',
         cell: (c) => (
-          <Link to={paths.plan.href(c.row.original.id)} tabIndex={-1} onClick={(e) => e.stopPropagation()} className="font-semibold hover:text-copper hover:underline">
-            {c.row.original.name}
-          </Link>
+          <>
+            <Link to={paths.plan.href(c.row.original.id)} {...ROW_ACTION} className="font-semibold hover:text-copper hover:underline">
+              {c.row.original.name}
+            </Link>
+            {/* A phone has no room for the customer column: the customer rides with the plan. */}
+            {showCustomer && <span className="block text-xs text-ink-soft sm:hidden">{c.row.original.companyName}</span>}
+          </>
         ),
       },
-      ...(showCustomer ? [{ id: 'customer', accessorKey: 'companyName', header: 'Customer' } satisfies ColumnDef<SavedPlan>] : []),
+      ...(showCustomer ? [{ id: 'customer', accessorKey: 'companyName', header: 'Customer', meta: { className: 'max-sm:hidden' } } satisfies ColumnDef<SavedPlan>] : []),
       {
         id: 'site',
         header: 'Site',
+        meta: { className: 'max-sm:hidden' },
         accessorFn: (p) => [p.siteSuburb, p.sitePostcode].filter(Boolean).join(' '),
         cell: (c) => c.getValue<string>() || <span className="text-ink-soft">—</span>,
       },
-      { id: 'range', accessorKey: 'rangeName', header: 'Range' },
+      { id: 'range', accessorKey: 'rangeName', header: 'Range', meta: { className: 'max-sm:hidden' } },
       {
         id: 'layout',
         accessorFn: (p) => p.stacks * 100 + p.modulesPerStack,
@@ -36,7 +43,7 @@ export function SavedPlansTable({ plans, onOpen, showCustomer }: { plans: SavedP
             {c.row.original.stacks} × {c.row.original.modulesPerStack}
           </span>
         ),
-        meta: { className: 'whitespace-nowrap' },
+        meta: { className: 'whitespace-nowrap max-sm:hidden' },
         header: () => (
           <span>
             Layout <span className="normal-case">(stacks × modules)</span>
@@ -54,10 +61,11 @@ export function SavedPlansTable({ plans, onOpen, showCustomer }: { plans: SavedP
           </span>
         ),
       },
-      { id: 'by', accessorKey: 'createdBy', header: 'Planned by' },
-      { id: 'created', accessorKey: 'createdAt', header: 'Saved', cell: (c) => <span className="num whitespace-nowrap">{c.row.original.createdAt.slice(0, 10)}</span> },
+      { id: 'by', accessorKey: 'createdBy', header: 'Planned by', meta: { className: 'max-sm:hidden' } },
+      { id: 'created', accessorKey: 'createdAt', header: 'Saved', cell: (c) => <span className="num whitespace-nowrap">{formatDate(c.row.original.createdAt)}</span> },
     ],
     [showCustomer],
   );
-  return <DataTable label="Saved plans" data={plans} columns={columns} getRowId={(p) => p.id} onOpen={onOpen} empty="No saved plans yet. Plan a stack and save it as a draft." />;
+  // The server lists plans newest first.
+  return <DataTable label="Saved plans" data={plans} columns={columns} getRowId={(p) => p.id} initialSorting={NEWEST_FIRST} empty="No saved plans yet. Plan a stack and save it as a draft." />;
 }

@@ -7,7 +7,7 @@ import { planStack, type PlanError, type PlannerInverter, type PlannerRange, typ
 export interface LineStock {
   available: number;
   short: number;
-  availability: { warehouse: string; available: number }[];
+  availability: { warehouse: string; warehouseName: string; available: number }[];
 }
 
 export type ShownLine = StackPlan['bom'][number] & { stock?: LineStock };

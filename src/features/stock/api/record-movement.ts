@@ -1,7 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AdjustmentInput, CountInput, LedgerResult, ReceiptInput, TransferInput } from '@shared/contracts/stock.ts';
 import { api } from '@/lib/api-client.ts';
-import { jobKeys } from '@/features/jobs/api/keys.ts';
 import { stockKeys } from './keys.ts';
 
 type Entry = { kind: 'adjustments'; input: AdjustmentInput } | { kind: 'transfers'; input: TransferInput } | { kind: 'receipts'; input: ReceiptInput } | { kind: 'counts'; input: CountInput };
@@ -13,6 +12,6 @@ export function useRecordMovement() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: recordMovement,
-    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: stockKeys.all }), qc.invalidateQueries({ queryKey: jobKeys.all })]),
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: stockKeys.all }), qc.invalidateQueries({ queryKey: ['jobs'] }) /* the jobs feature's key root */]),
   });
 }

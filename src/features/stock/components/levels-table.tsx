@@ -1,13 +1,21 @@
 import { useMemo } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { StockLevel } from '@shared/contracts/stock.ts';
-import { DataTable } from '@/components/ui/data-table.tsx';
+import { Link } from 'react-router';
+import { DataTable, ROW_ACTION } from '@/components/ui/data-table.tsx';
+import { paths } from '@/config/paths.ts';
 
 /** Stock per part × warehouse × bin: on hand, reserved, available, on order. */
-export function LevelsTable({ levels, onOpen }: { levels: StockLevel[]; onOpen: (l: StockLevel) => void }) {
+/** A row opens the part's movements. */
+export function LevelsTable({ levels }: { levels: StockLevel[] }) {
   const columns = useMemo<ColumnDef<StockLevel>[]>(
     () => [
-      { id: 'sku', accessorKey: 'sku', header: 'SKU', cell: (c) => <span className="num font-semibold">{c.row.original.sku}</span> },
+      { id: 'sku', accessorKey: 'sku', header: 'SKU', cell: (c) => (
+          <Link {...ROW_ACTION} to={paths.stockMovements.href(new URLSearchParams({ sku: c.row.original.sku }).toString())} className="num font-semibold hover:text-copper hover:underline">
+            {c.row.original.sku}
+          </Link>
+        ),
+      },
       { id: 'name', accessorKey: 'name', header: 'Part', meta: { className: 'min-w-48' } },
       { id: 'warehouse', accessorKey: 'warehouse', header: 'Warehouse', cell: (c) => <span className="num">{c.row.original.warehouse}</span> },
       {
@@ -34,5 +42,5 @@ export function LevelsTable({ levels, onOpen }: { levels: StockLevel[]; onOpen: 
     ],
     [],
   );
-  return <DataTable label="Stock levels" data={levels} columns={columns} getRowId={(l) => `${l.sku}|${l.warehouse}|${l.bin}`} onOpen={onOpen} dense empty="No stock matches." />;
+  return <DataTable label="Stock levels" data={levels} columns={columns} getRowId={(l) => `${l.sku}|${l.warehouse}|${l.bin}`} dense empty="No stock matches." />;
 }

@@ -1,12 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { CompanyOption } from '@shared/contracts/users.ts';
 import { api } from '@/lib/api-client.ts';
 import { userKeys } from './keys.ts';
-
-export interface CompanyOption {
-  id: string;
-  name: string;
-  kind: 'wholesaler' | 'installer';
-}
 
 export const getCompanies = () => api<{ data: CompanyOption[] }>('/admin/companies').then((r) => r.data);
 

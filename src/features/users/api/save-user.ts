@@ -4,8 +4,8 @@ import { api } from '@/lib/api-client.ts';
 import { userKeys } from './keys.ts';
 
 export const createUser = (input: CreateUserInput) => api<{ data: UserRow }>('/admin/users', { method: 'POST', body: input }).then((r) => r.data);
-export const updateUser = (id: string, input: UpdateUserInput) => api<{ data: UserRow }>(`/admin/users/${id}`, { method: 'PATCH', body: input }).then((r) => r.data);
-export const resetPassword = (id: string, password: string) => api<void>(`/admin/users/${id}/password`, { method: 'POST', body: { password } });
+export const updateUser = (id: string, input: UpdateUserInput) => api<{ data: UserRow }>(`/admin/users/${encodeURIComponent(id)}`, { method: 'PATCH', body: input }).then((r) => r.data);
+export const resetPassword = (id: string, password: string) => api<void>(`/admin/users/${encodeURIComponent(id)}/password`, { method: 'POST', body: { password } });
 
 export function useCreateUser() {
   const qc = useQueryClient();

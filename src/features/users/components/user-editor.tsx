@@ -1,84 +1,85 @@
 import { useState } from 'react';
-import { ROLES, ROLE_LABELS, type Role } from '@shared/roles.ts';
-import type { UserRow } from '@shared/contracts/users.ts';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { ROLES, ROLE_LABELS } from '@shared/roles.ts';
+import { ResetPasswordSchema, UserAccessSchema, type ResetPasswordInput, type UserAccessInput, type UserRow } from '@shared/contracts/users.ts';
 import { SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
 import { Button } from '@/components/ui/button.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
+import { applyServerErrors } from '@/lib/form-errors.ts';
 import { useCompanies } from '../api/get-companies.ts';
 import { useResetPassword, useUpdateUser } from '../api/save-user.ts';
+import { CompanyField } from './company-field.tsx';
 
-/** Role, company, deactivation and password for one user. */
+type Message = { tone: 'good' | 'danger'; text: string } | null;
+
+/** Role, company, deactivation and password for one user: two small forms, the same approach as the new-user form. */
 export function UserEditor({ user, onClose }: { user: UserRow; onClose: () => void }) {
   const { data: companies = [] } = useCompanies();
   const update = useUpdateUser();
   const reset = useResetPassword();
-  const [role, setRole] = useState<Role>(user.role);
-  const [companyId, setCompanyId] = useState(user.companyId ?? '');
-  const [password, setPassword] = useState('');
-  const [message, setMessage] = useState<{ tone: 'good' | 'danger'; text: string } | null>(null);
-  const choices = companies.filter((c) => (role === 'installer' ? c.kind === 'installer' : c.kind === 'wholesaler'));
-  const fail = (e: Error) => setMessage({ tone: 'danger', text: e.message });
+  const [message, setMessage] = useState<Message>(null);
+  const access = useForm<UserAccessInput>({ resolver: zodResolver(UserAccessSchema), defaultValues: { role: user.role, companyId: user.companyId } });
+  const password = useForm<ResetPasswordInput>({ resolver: zodResolver(ResetPasswordSchema), defaultValues: { password: '' } });
+  const fail = (text: string | null) => text && setMessage({ tone: 'danger', text });
+
+  const saveAccess = access.handleSubmit((input) => {
+    setMessage(null);
+    update.mutate(
+      { id: user.id, input },
+      { onSuccess: () => setMessage({ tone: 'good', text: 'Role and company saved.' }), onError: (e) => fail(applyServerErrors(e, access.setError, ['role', 'companyId'])) },
+    );
+  });
+  const setPassword = password.handleSubmit(({ password: value }) => {
+    setMessage(null);
+    reset.mutate(
+      { id: user.id, password: value },
+      {
+        onSuccess: () => {
+          password.reset();
+          setMessage({ tone: 'good', text: 'Password set. Their other sessions were signed out.' });
+        },
+        onError: (e) => fail(applyServerErrors(e, password.setError, ['password'])),
+      },
+    );
+  });
 
   return (
-    <div className="space-y-4" aria-label={`Edit ${user.name}`}>
-      <div className="grid gap-3 sm:grid-cols-3">
-        <SelectField label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)} options={optionsOf(ROLES, ROLE_LABELS)} />
-        <SelectField label="Company" value={companyId} onChange={(e) => setCompanyId(e.target.value)}>
-          <option value="">{role === 'installer' ? 'Choose a customer company…' : 'The wholesaler'}</option>
-          {choices.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
-        </SelectField>
+    <div className="space-y-4">
+      <form onSubmit={saveAccess} noValidate className="grid gap-3 sm:grid-cols-3" aria-label="Role and company">
+        <SelectField label="Role" error={access.formState.errors.role?.message} {...access.register('role')} options={optionsOf(ROLES, ROLE_LABELS)} />
+        <CompanyField form={access} companies={companies} error={access.formState.errors.companyId?.message} />
         <div className="flex items-end gap-2">
-          <Button
-            variant="primary"
-            disabled={update.isPending}
-            onClick={() =>
-              update.mutate(
-                { id: user.id, input: { role, companyId: companyId || null } },
-                { onSuccess: () => setMessage({ tone: 'good', text: 'Role and company saved.' }), onError: fail },
-              )
-            }
-          >
+          <Button type="submit" variant="primary" disabled={update.isPending}>
             Save
           </Button>
         </div>
-      </div>
-      <div className="grid gap-3 sm:grid-cols-3">
-        <TextField label="New password" type="password" autoComplete="new-password" value={password} onChange={(e) => setPassword(e.target.value)} hint="Ends all of their sessions." />
+      </form>
+      <form onSubmit={setPassword} noValidate className="grid gap-3 sm:grid-cols-3" aria-label="Password">
+        <TextField label="New password" type="password" autoComplete="new-password" hint="Ends all of their sessions." error={password.formState.errors.password?.message} {...password.register('password')} />
         <div className="flex items-end">
-          <Button
-            disabled={password.length === 0 || reset.isPending}
-            onClick={() =>
-              reset.mutate(
-                { id: user.id, password },
-                { onSuccess: () => { setPassword(''); setMessage({ tone: 'good', text: 'Password set. Their other sessions were signed out.' }); }, onError: fail },
-              )
-            }
-          >
+          <Button type="submit" disabled={reset.isPending}>
             Set password
           </Button>
         </div>
-        <div className="flex items-end justify-end gap-2">
+        <div className="flex flex-wrap items-end justify-end gap-2">
           <Button
             variant={user.active ? 'danger' : 'secondary'}
             onClick={() =>
               update.mutate(
                 { id: user.id, input: { active: !user.active } },
-                { onSuccess: (u) => setMessage({ tone: 'good', text: u.active ? 'Reactivated.' : 'Deactivated: they can no longer sign in.' }), onError: fail },
+                { onSuccess: (u) => setMessage({ tone: 'good', text: u.active ? 'Reactivated.' : 'Deactivated: they can no longer sign in.' }), onError: (e) => fail(e.message) },
               )
             }
           >
             {user.active ? 'Deactivate' : 'Reactivate'}
           </Button>
-          <Button variant="ghost" onClick={onClose}>
+          <Button variant="secondary" onClick={onClose}>
             Close
           </Button>
         </div>
-      </div>
-      {message && <Notice tone={message.tone}>{message.text}</Notice>}
+      </form>
+      <div aria-live="polite">{message && <Notice tone={message.tone}>{message.text}</Notice>}</div>
     </div>
   );
 }

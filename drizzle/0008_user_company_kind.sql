@@ -1,0 +1,3 @@
+ALTER TABLE "user" ADD COLUMN "company_kind" text GENERATED ALWAYS AS (case when role in ('admin', 'purchasing', 'warehouse', 'sales') then 'wholesaler' else 'installer' end) STORED NOT NULL;--> statement-breakpoint
+ALTER TABLE "user" ADD CONSTRAINT "user_company_kind_fk" FOREIGN KEY ("company_id","company_kind") REFERENCES "public"."companies"("id","kind") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "user" ADD CONSTRAINT "user_has_company" CHECK ("user"."company_id" is not null);

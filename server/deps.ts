@@ -1,0 +1,66 @@
+import type { Logger } from 'pino';
+import type { Db } from './db/client.ts';
+import type { Auth } from './auth.ts';
+import type { SearchClient } from './search/client.ts';
+import type { FileStore } from './storage/files.ts';
+import { createSessionCache } from './middleware/session.ts';
+import { createUserService, type UserService } from './services/users.ts';
+import { createCatalogueService, type CatalogueService } from './services/catalogue.ts';
+import { createMediaService, type MediaService } from './services/media.ts';
+import { createSystemService, type SystemService } from './services/system.ts';
+import { createPartsIndex, type PartsIndex } from './search/parts-index.ts';
+import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerService } from './services/planner.ts';
+import { createTtlCache } from './lib/ttl-cache.ts';
+import { createStockService, type StockService } from './services/stock.ts';
+import { createJobService, type JobService } from './services/jobs.ts';
+
+/** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
+export interface AppOptions {
+  db: Db;
+  auth: Auth;
+  search: SearchClient;
+  files: FileStore;
+  logger: Logger;
+  trustedOrigins: string[];
+  /** Express "trust proxy" setting: which hops may tell us the client's address. */
+  trustProxy?: string | number | boolean;
+  /** Built client to serve; omitted in API-only tests. */
+  clientDir?: string;
+  /** The clock for stock and jobs (tests move it to expire quote holds). */
+  now?: () => Date;
+  /** How many days a quote (a draft's reservation) holds its units. */
+  quoteHoldDays?: number;
+}
+
+/** Options plus the services built from them. Routes take only the part they use (`Pick<AppDeps, …>`). */
+export interface AppDeps extends AppOptions {
+  sessionCache: ReturnType<typeof createSessionCache>;
+  system: SystemService;
+  users: UserService;
+  partsIndex: PartsIndex;
+  catalogue: CatalogueService;
+  media: MediaService;
+  planner: PlannerService;
+  stock: StockService;
+  jobs: JobService;
+}
+
+/** Services built from the injected side effects; shared by the app, CLI tasks, tests and benchmarks. */
+export function createServices(options: AppOptions): AppDeps {
+  const partsIndex = createPartsIndex(options.search);
+  const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
+  const sessionCache = createSessionCache();
+  const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (tx, ids) => partsIndex.sync(tx, [...new Set(ids)]) });
+  return {
+    ...options,
+    partsIndex,
+    sessionCache,
+    system: createSystemService({ db: options.db, search: options.search }),
+    users: createUserService({ ...options, onAccessChanged: sessionCache.clear }),
+    catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
+    media: createMediaService({ db: options.db, files: options.files, partsIndex }),
+    planner,
+    stock: createStockService({ db: options.db, now: options.now }),
+    jobs: createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays }),
+  };
+}
