@@ -39,6 +39,20 @@ async function settled(page: Page, url: string, heading: RegExp) {
   await page.waitForLoadState('networkidle');
 }
 
+/** Nothing wider than the window: neither the page nor a table inside its box. */
+async function expectWithinWidth(page: Page, state: string) {
+  const widths = await page.evaluate(() => ({
+    page: document.documentElement.scrollWidth,
+    viewport: window.innerWidth,
+    overflowing: Array.from(document.querySelectorAll('table'))
+      .map((t) => t.parentElement!)
+      .filter((box) => box.scrollWidth > box.clientWidth + 1)
+      .map((box) => box.querySelector('table')?.getAttribute('aria-label') ?? 'a table'),
+  }));
+  expect(widths.page, state).toBeLessThanOrEqual(widths.viewport);
+  expect(widths.overflowing, state).toEqual([]);
+}
+
 async function expectNoAxeViolations(page: Page, state: string) {
   expect((await axeViolations(page)).join('\n'), state).toBe('');
 }
@@ -93,6 +107,38 @@ describe('axe-core on every main page', () => {
     await admin.getByRole('table', { name: 'Users' }).locator('tbody [data-row-action]').first().click();
     await admin.getByRole('form', { name: 'Role and company' }).waitFor();
     await expectNoAxeViolations(admin, 'users, editor open');
+  });
+
+  it('finds nothing on the jobs and stock pages, at desk and at phone width', async () => {
+    for (const size of [undefined, { width: 390, height: 844 }]) {
+      const where = size ? 'phone ' : '';
+      const sales = await h.newPage(size);
+      await signInAs(sales, 'sales@stackyard.test');
+      await settled(sales, '/jobs', /^Jobs$/);
+      await expectNoAxeViolations(sales, `${where}jobs`);
+      await expectWithinWidth(sales, `${where}jobs`);
+      await sales.getByRole('table', { name: 'Jobs' }).locator('tbody [data-row-action]').first().click();
+      await waitForText(sales.getByRole('heading', { level: 1 }), /^(?!Jobs$)./);
+      await sales.waitForLoadState('networkidle');
+      await expectNoAxeViolations(sales, `${where}job page`);
+      await expectWithinWidth(sales, `${where}job page`);
+      await settled(sales, '/jobs/new', /^New job$/);
+      await expectNoAxeViolations(sales, `${where}new job`);
+
+      const warehouse = await h.newPage(size);
+      await signInAs(warehouse, 'warehouse@stackyard.test');
+      for (const [state, url, heading] of [
+        ['stock', '/stock', /^Stock$/],
+        ['movements', '/stock/movements', /^Stock movements$/],
+        ['stock entry', '/stock/entry', /^Stock in and out$/],
+        ['low stock', '/stock/low', /^Low stock$/],
+        ['warehouses', '/admin/warehouses', /^Warehouses and bins$/],
+      ] as [string, string, RegExp][]) {
+        await settled(warehouse, url, heading);
+        await expectNoAxeViolations(warehouse, `${where}${state}`);
+        await expectWithinWidth(warehouse, `${where}${state}`);
+      }
+    }
   });
 
   it('finds nothing at phone width, with the menu and the filters open', async () => {
@@ -216,6 +262,7 @@ describe('by keyboard alone', () => {
     expect(page.url()).toMatch(/\/plans$/);
     await page.keyboard.press('Control+/');
     await page.waitForURL(/\/catalogue$/);
+    await page.getByText(/Press Ctrl \+ \/ to search from anywhere/).waitFor();
     expect(await page.getByText(/Press Ctrl \+ \/ to search from anywhere/).count()).toBe(1);
   });
 });
@@ -267,17 +314,8 @@ describe('at 390 × 844 (a phone)', () => {
     ];
     for (const [url, heading] of pages) {
       await settled(page, url, heading);
-      const widths = await page.evaluate(() => ({
-        page: document.documentElement.scrollWidth,
-        viewport: window.innerWidth,
-        // Tables scroll inside their box on a desk; on a phone they must fit it too.
-        overflowing: Array.from(document.querySelectorAll('table'))
-          .map((t) => t.parentElement!)
-          .filter((box) => box.scrollWidth > box.clientWidth + 1)
-          .map((box) => box.querySelector('table')?.getAttribute('aria-label')),
-      }));
-      expect(widths.page, url).toBeLessThanOrEqual(widths.viewport);
-      expect(widths.overflowing, url).toEqual([]);
+      // Tables scroll inside their box on a desk; on a phone they must fit it too.
+      await expectWithinWidth(page, url);
     }
     // The navigation is a menu button; its links appear when it opens.
     const nav = page.getByRole('navigation', { name: 'Main' });

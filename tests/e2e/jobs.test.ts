@@ -51,7 +51,7 @@ describe('jobs', () => {
     await installer.reload();
     await waitForText(installer.locator('main'), /Part reserved/);
     await waitForText(installer.locator('section', { has: installer.getByRole('heading', { name: 'Backorders' }) }), new RegExp(`3 × ${scarce!.sku}`));
-    await waitForText(installer.locator('main'), /Total inc GST/);
+    await waitForText(installer.locator('main'), /Total \(inc GST\)/);
     expect(await installer.locator('main').textContent()).not.toMatch(/On hand/i);
   });
 });

@@ -6,7 +6,7 @@ import { Page } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { Pager } from '@/components/ui/pager.tsx';
 import { useUrlFilters } from '@/lib/use-url-filters.ts';
-import { DataTable } from '@/components/ui/data-table.tsx';
+import { DataTable, PHONE_HIDDEN } from '@/components/ui/data-table.tsx';
 import { SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
 import { paths } from '@/config/paths.ts';
 import { useMovements } from '@/features/stock/api/get-movements.ts';
@@ -22,9 +22,18 @@ export function StockMovementsRoute() {
   const { data: warehouses = [] } = useWarehouses();
   const columns = useMemo<ColumnDef<Movement>[]>(
     () => [
-      { id: 'at', accessorKey: 'at', header: 'When', cell: (c) => <span className="num whitespace-nowrap">{c.row.original.at.slice(0, 16).replace('T', ' ')}</span> },
-      { id: 'sku', accessorKey: 'sku', header: 'SKU', cell: (c) => <span className="num font-semibold">{c.row.original.sku}</span> },
-      { id: 'where', header: 'Where', accessorFn: (m) => `${m.warehouse} ${m.bin}`, cell: (c) => <span className="num whitespace-nowrap">{c.getValue<string>()}</span> },
+      { id: 'at', accessorKey: 'at', header: 'When', meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num whitespace-nowrap">{c.row.original.at.slice(0, 16).replace('T', ' ')}</span> },
+      { id: 'sku', accessorKey: 'sku', header: 'SKU',
+        cell: (c) => (
+          <>
+            <span className="num font-semibold">{c.row.original.sku}</span>
+            <span className="num block text-xs text-ink-soft sm:hidden">
+              {c.row.original.warehouse} {c.row.original.bin} · {c.row.original.at.slice(0, 10)}
+            </span>
+          </>
+        ),
+      },
+      { id: 'where', header: 'Where', meta: { className: PHONE_HIDDEN }, accessorFn: (m) => `${m.warehouse} ${m.bin}`, cell: (c) => <span className="num whitespace-nowrap">{c.getValue<string>()}</span> },
       { id: 'kind', accessorKey: 'kind', header: 'Movement', cell: (c) => MOVEMENT_KIND_LABELS[c.row.original.kind] },
       {
         id: 'qty',
@@ -36,6 +45,7 @@ export function StockMovementsRoute() {
       {
         id: 'ref',
         header: 'Reference',
+        meta: { className: PHONE_HIDDEN },
         accessorFn: (m) => m.job?.reference ?? m.reference ?? '',
         cell: (c) =>
           c.row.original.job ? (
@@ -46,8 +56,8 @@ export function StockMovementsRoute() {
             <span className="num">{c.row.original.reference ?? '—'}</span>
           ),
       },
-      { id: 'reason', accessorKey: 'reason', header: 'Reason', cell: (c) => c.row.original.reason ?? <span className="text-ink-soft">—</span> },
-      { id: 'by', accessorKey: 'by', header: 'By', cell: (c) => c.row.original.by ?? 'Stackyard' },
+      { id: 'reason', accessorKey: 'reason', header: 'Reason', meta: { className: PHONE_HIDDEN }, cell: (c) => c.row.original.reason ?? <span className="text-ink-soft">—</span> },
+      { id: 'by', accessorKey: 'by', header: 'By', meta: { className: PHONE_HIDDEN }, cell: (c) => c.row.original.by ?? 'Stackyard' },
     ],
     [],
   );

@@ -25,6 +25,9 @@ interface DataTableProps<T> {
   dense?: boolean;
 }
 
+/** A column's class for what a phone (under 640 px) leaves out; fold what matters into another cell. */
+export const PHONE_HIDDEN = 'max-sm:hidden';
+
 /** Per-column extras, set as `meta` on a column definition. */
 export interface ColumnMeta {
   /** 'right' for quantities and money, so the digits line up. */

@@ -1,17 +1,14 @@
 import { useMemo } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
-import { DataTable, type ColumnMeta } from '@/components/ui/data-table.tsx';
+import { DataTable, PHONE_HIDDEN, type ColumnMeta } from '@/components/ui/data-table.tsx';
 import { StatusTag } from '@/components/ui/notice.tsx';
-import { formatNumber } from '@/lib/format.ts';
-import { formatCents } from '@shared/domain/money.ts';
+import { formatMoney, formatNumber } from '@/lib/format.ts';
+import { MoneyTotals } from '@/components/ui/money-totals.tsx';
 import { warehousesOf, type ShownLine, type ShownPlan } from '../lib/plan-view.ts';
 import { SkuLink } from '@/components/ui/sku-link.tsx';
 
 const right: ColumnMeta = { align: 'right' };
-/** On a phone the BOM keeps SKU, part, quantity and availability; packs, reasons and depots need the width. */
-const PHONE_HIDDEN = 'max-sm:hidden';
-
 export function StockStatus({ line }: { line: ShownLine }) {
   if (!line.stock) return <span className="text-xs text-ink-soft">checking…</span>;
   return line.stock.short > 0 ? (
@@ -83,15 +80,15 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
         id: 'price',
         accessorKey: 'unitPriceCents',
         header: 'Unit price',
-        meta: right,
-        cell: (c) => <span className="num whitespace-nowrap">{c.row.original.unitPriceCents != null ? formatCents(c.row.original.unitPriceCents) : '—'}</span>,
+        meta: { ...right, className: PHONE_HIDDEN },
+        cell: (c) => <span className="num whitespace-nowrap">{c.row.original.unitPriceCents != null ? formatMoney(c.row.original.unitPriceCents) : '—'}</span>,
       },
       {
         id: 'total',
         accessorKey: 'lineTotalCents',
         header: 'Line total',
-        meta: right,
-        cell: (c) => <span className="num whitespace-nowrap font-medium">{c.row.original.lineTotalCents != null ? formatCents(c.row.original.lineTotalCents) : '—'}</span>,
+        meta: { ...right, className: PHONE_HIDDEN },
+        cell: (c) => <span className="num whitespace-nowrap font-medium">{c.row.original.lineTotalCents != null ? formatMoney(c.row.original.lineTotalCents) : '—'}</span>,
       },
       {
         id: 'why',
@@ -146,35 +143,8 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
       <div className="[&>div]:max-h-none print:[&>div]:overflow-visible">
         <DataTable label="Bill of materials" data={plan.bom} columns={columns} getRowId={(l) => l.sku} empty="No parts." />
       </div>
-      <BomTotals totals={plan.totals} />
+      <MoneyTotals totals={plan.totals} basis="List prices" />
     </div>
   );
 }
 
-/** Subtotal, GST and total of the priced lines: list prices, GST worked out on the total. */
-export function BomTotals({ totals }: { totals: ShownPlan['totals'] }) {
-  const row = 'flex justify-between gap-6';
-  return (
-    <div className="flex justify-end">
-      <dl className="w-full max-w-xs space-y-0.5 rounded-md border border-line bg-card px-3 py-2 text-sm print:bg-white" aria-label="Totals" data-testid="bom-totals">
-        <div className={row}>
-          <dt>Subtotal (ex GST)</dt>
-          <dd className="num">{formatCents(totals.subtotalCents)}</dd>
-        </div>
-        <div className={row}>
-          <dt>GST 10 %</dt>
-          <dd className="num">{formatCents(totals.gstCents)}</dd>
-        </div>
-        <div className={`${row} border-t border-line pt-0.5 font-semibold`}>
-          <dt>Total (inc GST)</dt>
-          <dd className="num" data-testid="bom-total">
-            {formatCents(totals.totalCents)}
-          </dd>
-        </div>
-        <p className="pt-1 text-xs text-ink-soft">List prices{totals.unpricedLines > 0 ? `; ${plural(totals.unpricedLines, 'line')} without a price left out` : ''}.</p>
-      </dl>
-    </div>
-  );
-}
-
-const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
