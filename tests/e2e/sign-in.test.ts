@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startBrowserHarness, signInAs, type BrowserHarness } from './support.ts';
+import { startBrowserHarness, signInAs, waitForText, type BrowserHarness } from './support.ts';
 
 let h: BrowserHarness;
 beforeAll(async () => {
@@ -37,6 +37,8 @@ describe('signing in', () => {
     const page = await h.newPage();
     await signInAs(page, email);
     const main = page.getByRole('navigation', { name: 'Main' });
+    // The frame draws before the session answers; the role and the links follow it.
+    await waitForText(page.getByRole('heading', { level: 1 }), /^Good to see you/);
     expect(await page.getByTestId('nav-role').textContent()).toBe(role);
     expect(await main.getByRole('link').allTextContents()).toEqual(nav);
     expect(await page.getByRole('heading', { level: 1 }).textContent()).toMatch(/^Good to see you/);
