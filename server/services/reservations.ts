@@ -1,8 +1,8 @@
 // Reserving a job: one transaction across all its lines, never more than is available.
 import { sql, type SQL } from 'drizzle-orm';
-import type { Db, Tx } from '../db/client.ts';
+import { executePrepared, type Db, type Tx } from '../db/client.ts';
 import { ConflictError, NotFoundError } from '../errors.ts';
-import { lockPartLevels, type LockedLevel } from './ledger.ts';
+import { lockParts, type LockedLevel } from './ledger.ts';
 
 export interface ReserveOutcome {
   reservedUnits: number;
@@ -22,7 +22,7 @@ export interface ReservationPlan {
  * default bins of its parts. Read before any lock is taken, in one round trip.
  */
 export async function reservationPlan(db: Db | Tx, jobId: string): Promise<ReservationPlan> {
-  const rows = await db.execute<{ lines: ReservationPlan['lines']; wh: ReservationPlan['whRows']; bins: ReservationPlan['binRows']; defaults: ReservationPlan['defaults'] }>(sql`
+  const rows = await executePrepared<{ lines: ReservationPlan['lines']; wh: ReservationPlan['whRows']; bins: ReservationPlan['binRows']; defaults: ReservationPlan['defaults'] }>(db, sql`
     with l as (select id, part_id, qty, line_no from job_lines where job_id = ${jobId}),
          p as (select distinct part_id from l)
     select
@@ -42,19 +42,29 @@ export async function reservationPlan(db: Db | Tx, jobId: string): Promise<Reser
  * bins in pick order. What is still short becomes a backorder, unless the job is only a quote.
  * Lock order as in ledger.ts: the parts, their level rows, then the job. (The job's backorders
  * are only ever written under their part's lock, which this transaction holds for every line.)
- * Few round trips while the locks are held: the writes go as one statement each.
+ * Few round trips while the locks are held: the level rows and the job in one statement, every
+ * write in one more, each a prepared statement.
  */
 export async function reserveInTx(tx: Tx, jobId: string, plan: ReservationPlan, opts: { userId: string | null; now: Date; quoteHoldMs: number; firmUpOnly?: boolean }): Promise<ReserveOutcome> {
   const { lines, partIds, whRows, binRows, defaults } = plan;
-  const levels = await lockPartLevels(tx, partIds);
+  // Step 0 of the lock order (the parts) on its own, so the next statement's snapshot sees every
+  // level row committed before the part locks were granted. Then the level rows (step 1) and the
+  // job (step 3) in one statement: with the parts held, no other transaction locks these level
+  // rows, so the order of those two cannot close a circle.
+  await lockParts(tx, partIds);
   // The job as it is now, under its lock: another request may have reserved, ordered or cancelled it meanwhile.
-  const jobRows = await tx.execute<{ status: string; preferred_warehouse_id: string | null; held: Record<string, number> | null; quote_holds: boolean }>(sql`
-    select j.status, j.preferred_warehouse_id,
+  const jobRows = await executePrepared<{ levels: LockedLevel[]; status: string; preferred_warehouse_id: string | null; held: Record<string, number> | null; quote_holds: boolean }>(tx, sql`
+    select
+      (select coalesce(json_agg(json_build_object('partId', lv.part_id, 'warehouseId', lv.warehouse_id, 'bin', lv.bin, 'onHand', lv.on_hand, 'reserved', lv.reserved)), '[]')
+        from (select part_id, warehouse_id, bin, on_hand, reserved from stock_levels where part_id = any(${`{${partIds.join(',')}}`}::uuid[])
+              order by part_id, warehouse_id, bin collate "C" for update) lv) as levels,
+      j.status, j.preferred_warehouse_id,
       (select json_object_agg(r.job_line_id, r.qty) from (select job_line_id, sum(qty)::int as qty from reservations where job_line_id in (select id from job_lines where job_id = j.id) group by job_line_id) r) as held,
       exists (select 1 from reservations r join job_lines l on l.id = r.job_line_id where l.job_id = j.id and r.expires_at is not null) as quote_holds
     from jobs j where j.id = ${jobId} for update of j`);
   const job = jobRows.rows[0];
   if (!job) throw new NotFoundError('That job');
+  const levels = job.levels;
   if (!opts.firmUpOnly) assertReservable(job.status);
   const heldOf = new Map(Object.entries(job.held ?? {}));
   const full = lines.length > 0 && lines.every((l) => (heldOf.get(l.id) ?? 0) >= l.qty);
@@ -134,10 +144,10 @@ export async function reserveInTx(tx: Tx, jobId: string, plan: ReservationPlan, 
         sql`hist as (insert into job_status_history (job_id, status, user_id, at) select id, ${status}, ${opts.userId}, ${opts.now} from moved returning 1)`,
       );
   }
-  if (writes.length) await tx.execute(sql`with ${sql.join(writes, sql`, `)} select 1`);
+  if (writes.length) await executePrepared(tx, sql`with ${sql.join(writes, sql`, `)} select 1`);
   if (isQuote) return { reservedUnits, backorderedUnits: 0 };
   // A firm reservation makes any quote holds on the job firm too (after the upsert above: one change per row per statement).
-  if (job.quote_holds) await tx.execute(sql`update reservations set expires_at = null where expires_at is not null and job_line_id in (select id from job_lines where job_id = ${jobId})`);
+  if (job.quote_holds) await executePrepared(tx, sql`update reservations set expires_at = null where expires_at is not null and job_line_id in (select id from job_lines where job_id = ${jobId})`);
   return { reservedUnits, backorderedUnits: waiting.reduce((s, w) => s + w.qty, 0) };
 }
 
