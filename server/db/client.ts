@@ -1,13 +1,28 @@
+import { createHash } from 'node:crypto';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
+import type { SQL } from 'drizzle-orm';
 import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres';
+import type { PgDialect, PgSession } from 'drizzle-orm/pg-core';
 import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import * as schema from './schema/index.ts';
 
 export type Db = NodePgDatabase<typeof schema> & { $client: pg.Pool };
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 export type DbOrTx = Db | Tx;
+
+/**
+ * `db.execute(query)` as a named prepared statement (the name is the hash of its text): each
+ * connection parses and plans it once, later calls only bind and run it. For the statements of
+ * hot paths (reserving a job) whose planning costs more than running them.
+ */
+export async function executePrepared<T extends Record<string, unknown>>(db: DbOrTx, query: SQL): Promise<{ rows: T[] }> {
+  const { dialect, session } = db as unknown as { dialect: PgDialect; session: PgSession };
+  const built = dialect.sqlToQuery(query);
+  const name = `sy_${createHash('sha1').update(built.sql).digest('hex').slice(0, 24)}`;
+  return (await session.prepareQuery(built, undefined, name, false).execute()) as { rows: T[] };
+}
 
 const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../drizzle');
 

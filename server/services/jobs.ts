@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, gte, ilike, lt, sql, type SQL } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
-import { backorders, companies, jobLines, jobPlans, jobs, jobStatusHistory, parts, ranges, reservations, stackPlans, user, warehouses } from '../db/schema/index.ts';
+import { companies, jobLines, jobPlans, jobs, jobStatusHistory, reservations, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { assertCanSeeCompany, companyForNew, companyScopeOf, isCompanyBound } from '../policies/company-scope.ts';
 import { can } from '@shared/roles.ts';
@@ -26,10 +26,11 @@ const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code
 type JobRow = typeof jobs.$inferSelect;
 
 export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7 }: JobDeps) {
+  const jobByIdQuery = db.select().from(jobs).where(eq(jobs.id, sql.placeholder('id'))).prepare('job_by_id');
   /** The job if the actor may see it; another company's job is "not found". */
   async function visibleJob(actor: Actor, id: string, tx: Db | Tx = db): Promise<JobRow> {
     if (!UUID_RE.test(id)) throw new NotFoundError('That job');
-    const [row] = await tx.select().from(jobs).where(eq(jobs.id, id));
+    const [row] = tx === db ? await jobByIdQuery.execute({ id }) : await tx.select().from(jobs).where(eq(jobs.id, id));
     if (!row) throw new NotFoundError('That job');
     assertCanSeeCompany(actor, row.companyId, 'That job');
     return row;
@@ -63,76 +64,49 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     await tx.update(jobs).set({ linesCopiedAt: now() }).where(eq(jobs.id, job.id));
   }
 
+  // The job with its company, preferred warehouse, plans, lines, holds, backorders and history
+  // in one round trip (the lists as JSON, timestamps turned back into dates in detail()). A named
+  // prepared statement: each connection plans it once instead of on every read.
+  const jobDetailQuery = db
+    .select({
+      job: jobs,
+      company: { id: companies.id, name: companies.name },
+      preferredCode: warehouses.code,
+      preferredName: warehouses.name,
+      plans: sql<{ id: string; name: string; rangeName: string; summary: unknown }[]>`(select coalesce(json_agg(json_build_object('id', sp.id, 'name', sp.name, 'rangeName', rg.name, 'summary', sp.summary) order by sp.name), '[]')
+        from job_plans jp join stack_plans sp on sp.id = jp.plan_id join ranges rg on rg.id = sp.range_id where jp.job_id = "jobs"."id")`,
+      lines: sql<{ id: string; lineNo: number; sku: string; name: string; qty: number; planId: string | null; planName: string | null; reason: string; unitPriceCents: number; reserved: number; backordered: number; available: number }[]>`(select coalesce(json_agg(json_build_object(
+          'id', jl.id, 'lineNo', jl.line_no, 'sku', p.sku, 'name', p.name, 'qty', jl.qty, 'planId', jl.plan_id, 'planName', sp.name, 'reason', jl.reason, 'unitPriceCents', jl.unit_price_cents,
+          'reserved', coalesce((select sum(r.qty) from reservations r where r.job_line_id = jl.id), 0)::int,
+          'backordered', coalesce((select b.qty from backorders b where b.job_line_id = jl.id), 0)::int,
+          'available', coalesce((select sum(l.on_hand - l.reserved) from stock_levels l where l.part_id = jl.part_id), 0)::int) order by jl.line_no), '[]')
+        from job_lines jl join parts p on p.id = jl.part_id left join stack_plans sp on sp.id = jl.plan_id where jl.job_id = "jobs"."id")`,
+      held: sql<{ sku: string; warehouse: string; bin: string; qty: number; needsTransfer: boolean; expiresAt: string | null }[]>`(select coalesce(json_agg(json_build_object('sku', p.sku, 'warehouse', w.code, 'bin', r.bin, 'qty', r.qty, 'needsTransfer', r.needs_transfer, 'expiresAt', r.expires_at) order by jl.line_no, w.rank, r.bin), '[]')
+        from reservations r join job_lines jl on jl.id = r.job_line_id join parts p on p.id = r.part_id join warehouses w on w.id = r.warehouse_id where jl.job_id = "jobs"."id")`,
+      queue: sql<{ sku: string; qty: number; since: string; position: number; unitsAhead: number }[]>`(select coalesce(json_agg(json_build_object('sku', p.sku, 'qty', b.qty, 'since', b.created_at,
+          'position', (select count(*) + 1 from backorders o where o.part_id = b.part_id and (o.created_at, o.id) < (b.created_at, b.id))::int,
+          'unitsAhead', (select coalesce(sum(o.qty), 0) from backorders o where o.part_id = b.part_id and (o.created_at, o.id) < (b.created_at, b.id))::int) order by jl.line_no), '[]')
+        from backorders b join job_lines jl on jl.id = b.job_line_id join parts p on p.id = b.part_id where jl.job_id = "jobs"."id")`,
+      history: sql<{ status: string; at: string; by: string | null; note: string | null }[]>`(select coalesce(json_agg(json_build_object('status', h.status, 'at', h.at, 'by', u.name, 'note', h.note) order by h.at, h.id), '[]')
+        from job_status_history h left join "user" u on u.id = h.user_id where h.job_id = "jobs"."id")`,
+    })
+    .from(jobs)
+    .innerJoin(companies, eq(companies.id, jobs.companyId))
+    .leftJoin(warehouses, eq(warehouses.id, jobs.preferredWarehouseId))
+    .where(eq(jobs.id, sql.placeholder('id')))
+    .prepare('job_detail');
+
   async function detail(actor: Actor, id: string) {
     authorize(actor, 'jobs.view');
     if (!UUID_RE.test(id)) throw new NotFoundError('That job');
-    // The job with its company and preferred warehouse in one round trip; the rest in parallel.
-    const [head] = await db
-      .select({ job: jobs, company: { id: companies.id, name: companies.name }, preferredCode: warehouses.code, preferredName: warehouses.name })
-      .from(jobs)
-      .innerJoin(companies, eq(companies.id, jobs.companyId))
-      .leftJoin(warehouses, eq(warehouses.id, jobs.preferredWarehouseId))
-      .where(eq(jobs.id, id));
+    const [head] = await jobDetailQuery.execute({ id });
     if (!head) throw new NotFoundError('That job');
     assertCanSeeCompany(actor, head.job.companyId, 'That job');
-    const { job, company } = head;
+    const { job, company, plans, lines } = head;
     const preferred = head.preferredCode && head.preferredName ? { code: head.preferredCode, name: head.preferredName } : null;
-    const [plans, lines, held, queue, history] = await Promise.all([
-      db
-        .select({ id: stackPlans.id, name: stackPlans.name, rangeName: ranges.name, summary: stackPlans.summary })
-        .from(jobPlans)
-        .innerJoin(stackPlans, eq(stackPlans.id, jobPlans.planId))
-        .innerJoin(ranges, eq(ranges.id, stackPlans.rangeId))
-        .where(eq(jobPlans.jobId, id))
-        .orderBy(asc(stackPlans.name)),
-      db
-        .select({
-          id: jobLines.id,
-          lineNo: jobLines.lineNo,
-          sku: parts.sku,
-          name: parts.name,
-          qty: jobLines.qty,
-          planId: jobLines.planId,
-          planName: stackPlans.name,
-          reason: jobLines.reason,
-          unitPriceCents: jobLines.unitPriceCents,
-          reserved: sql<number>`coalesce((select sum(r.qty) from reservations r where r.job_line_id = "job_lines"."id"), 0)::int`,
-          backordered: sql<number>`coalesce((select b.qty from backorders b where b.job_line_id = "job_lines"."id"), 0)::int`,
-          available: sql<number>`coalesce((select sum(l.on_hand - l.reserved) from stock_levels l where l.part_id = "job_lines"."part_id"), 0)::int`,
-        })
-        .from(jobLines)
-        .innerJoin(parts, eq(parts.id, jobLines.partId))
-        .leftJoin(stackPlans, eq(stackPlans.id, jobLines.planId))
-        .where(eq(jobLines.jobId, id))
-        .orderBy(asc(jobLines.lineNo)),
-      db
-        .select({ sku: parts.sku, warehouse: warehouses.code, bin: reservations.bin, qty: reservations.qty, needsTransfer: reservations.needsTransfer, expiresAt: reservations.expiresAt })
-        .from(reservations)
-        .innerJoin(jobLines, eq(jobLines.id, reservations.jobLineId))
-        .innerJoin(parts, eq(parts.id, reservations.partId))
-        .innerJoin(warehouses, eq(warehouses.id, reservations.warehouseId))
-        .where(eq(jobLines.jobId, id))
-        .orderBy(asc(jobLines.lineNo), asc(warehouses.rank), asc(reservations.bin)),
-      db
-        .select({
-          sku: parts.sku,
-          qty: backorders.qty,
-          since: backorders.createdAt,
-          position: sql<number>`(select count(*) + 1 from backorders o where o.part_id = ${backorders.partId} and (o.created_at, o.id) < (${backorders.createdAt}, ${backorders.id}))::int`,
-          unitsAhead: sql<number>`(select coalesce(sum(o.qty), 0) from backorders o where o.part_id = ${backorders.partId} and (o.created_at, o.id) < (${backorders.createdAt}, ${backorders.id}))::int`,
-        })
-        .from(backorders)
-        .innerJoin(jobLines, eq(jobLines.id, backorders.jobLineId))
-        .innerJoin(parts, eq(parts.id, backorders.partId))
-        .where(eq(jobLines.jobId, id))
-        .orderBy(asc(jobLines.lineNo)),
-      db
-        .select({ status: jobStatusHistory.status, at: jobStatusHistory.at, by: user.name, note: jobStatusHistory.note })
-        .from(jobStatusHistory)
-        .leftJoin(user, eq(user.id, jobStatusHistory.userId))
-        .where(eq(jobStatusHistory.jobId, id))
-        .orderBy(asc(jobStatusHistory.at), asc(jobStatusHistory.id)),
-    ]);
+    const held = head.held.map((r) => ({ ...r, expiresAt: r.expiresAt ? new Date(r.expiresAt) : null }));
+    const queue = head.queue.map((b) => ({ ...b, since: new Date(b.since) }));
+    const history = head.history.map((h) => ({ ...h, status: h.status as JobStatus, at: new Date(h.at) }));
     const holding = held.length > 0;
     const fullyHeld = lines.length > 0 && lines.every((l) => l.reserved >= l.qty);
     const abilities = {

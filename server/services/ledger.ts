@@ -10,7 +10,7 @@
 // (units left free while a backorder waits). Reservations are only written under these locks.
 import { randomBytes } from 'node:crypto';
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
-import type { Db, DbOrTx, Tx } from '../db/client.ts';
+import { executePrepared, type Db, type DbOrTx, type Tx } from '../db/client.ts';
 import { backorders, defaultBins, jobLines, jobs, jobStatusHistory, parts, reservations, stockMovements, warehouses } from '../db/schema/index.ts';
 import { ConflictError, ValidationError } from '../errors.ts';
 import type { MovementKind } from '@shared/contracts/stock.ts';
@@ -88,7 +88,7 @@ export async function lockLevels(tx: Tx, keys: LevelKey[]): Promise<Map<string, 
 export async function lockPartLevels(tx: Tx, partIds: string[]): Promise<LockedLevel[]> {
   if (partIds.length === 0) return [];
   await lockParts(tx, partIds);
-  const rows = await tx.execute<{ part_id: string; warehouse_id: string; bin: string; on_hand: number; reserved: number }>(sql`
+  const rows = await executePrepared<{ part_id: string; warehouse_id: string; bin: string; on_hand: number; reserved: number }>(tx, sql`
     select part_id, warehouse_id, bin, on_hand, reserved from stock_levels
     where part_id = any(${`{${[...new Set(partIds)].join(',')}}`}::uuid[])
     order by part_id, warehouse_id, bin collate "C"
@@ -97,8 +97,8 @@ export async function lockPartLevels(tx: Tx, partIds: string[]): Promise<LockedL
 }
 
 /** Step 0 of the lock order; the statements after it see every row committed before it was granted. */
-async function lockParts(tx: Tx, partIds: string[]) {
-  await tx.execute(sql`select id from parts where id = any(${`{${[...new Set(partIds)].join(',')}}`}::uuid[]) order by id for no key update`);
+export async function lockParts(tx: Tx, partIds: string[]) {
+  await executePrepared(tx, sql`select id from parts where id = any(${`{${[...new Set(partIds)].join(',')}}`}::uuid[]) order by id for no key update`);
 }
 
 function toPgArray(values: string[]) {

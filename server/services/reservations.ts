@@ -1,32 +1,40 @@
 // Reserving a job: one transaction across all its lines, never more than is available.
-import { asc, eq, inArray, sql } from 'drizzle-orm';
-import type { Db, Tx } from '../db/client.ts';
-import { bins, defaultBins, jobLines, warehouses } from '../db/schema/index.ts';
+import { sql, type SQL } from 'drizzle-orm';
+import { executePrepared, type Db, type Tx } from '../db/client.ts';
 import { ConflictError, NotFoundError } from '../errors.ts';
-import { lockPartLevels, type LockedLevel } from './ledger.ts';
+import { lockParts, type LockedLevel } from './ledger.ts';
 
 export interface ReserveOutcome {
   reservedUnits: number;
   backorderedUnits: number;
 }
 
-/** What does not change while a job is reserved: its lines, the warehouses, bins and default bins. Read before any lock is taken. */
-export async function reservationPlan(db: Db | Tx, jobId: string) {
-  const lines = await db.select({ id: jobLines.id, partId: jobLines.partId, qty: jobLines.qty }).from(jobLines).where(eq(jobLines.jobId, jobId)).orderBy(asc(jobLines.lineNo));
-  const partIds = [...new Set(lines.map((l) => l.partId))];
-  const [whRows, binRows, defaults] = await Promise.all([
-    db.select({ id: warehouses.id, rank: warehouses.rank, code: warehouses.code }).from(warehouses),
-    partIds.length
-      ? db
-          .select({ warehouseId: bins.warehouseId, code: bins.code, pickOrder: bins.pickOrder })
-          .from(bins)
-          .where(sql`(${bins.warehouseId}, ${bins.code}) in (select warehouse_id, bin from stock_levels where part_id = any(${`{${partIds.join(',')}}`}::uuid[]))`)
-      : [],
-    partIds.length ? db.select().from(defaultBins).where(inArray(defaultBins.partId, partIds)) : [],
-  ]);
-  return { lines, partIds, whRows, binRows, defaults };
+export interface ReservationPlan {
+  lines: { id: string; partId: string; qty: number }[];
+  partIds: string[];
+  whRows: { id: string; rank: number; code: string }[];
+  binRows: { warehouseId: string; code: string; pickOrder: number }[];
+  defaults: { partId: string; warehouseId: string; bin: string }[];
 }
-export type ReservationPlan = Awaited<ReturnType<typeof reservationPlan>>;
+
+/**
+ * What does not change while a job is reserved: its lines, the warehouses, and the bins and
+ * default bins of its parts. Read before any lock is taken, in one round trip.
+ */
+export async function reservationPlan(db: Db | Tx, jobId: string): Promise<ReservationPlan> {
+  const rows = await executePrepared<{ lines: ReservationPlan['lines']; wh: ReservationPlan['whRows']; bins: ReservationPlan['binRows']; defaults: ReservationPlan['defaults'] }>(db, sql`
+    with l as (select id, part_id, qty, line_no from job_lines where job_id = ${jobId}),
+         p as (select distinct part_id from l)
+    select
+      (select coalesce(json_agg(json_build_object('id', id, 'partId', part_id, 'qty', qty) order by line_no), '[]') from l) as lines,
+      (select coalesce(json_agg(json_build_object('id', id, 'rank', rank, 'code', code)), '[]') from warehouses) as wh,
+      (select coalesce(json_agg(json_build_object('warehouseId', b.warehouse_id, 'code', b.code, 'pickOrder', b.pick_order)), '[]') from bins b
+        where (b.warehouse_id, b.code) in (select warehouse_id, bin from stock_levels where part_id in (select part_id from p))) as bins,
+      (select coalesce(json_agg(json_build_object('partId', d.part_id, 'warehouseId', d.warehouse_id, 'bin', d.bin)), '[]') from default_bins d
+        where d.part_id in (select part_id from p)) as defaults`);
+  const r = rows.rows[0]!;
+  return { lines: r.lines, partIds: [...new Set(r.lines.map((l) => l.partId))], whRows: r.wh, binRows: r.bins, defaults: r.defaults };
+}
 
 /**
  * Takes what each line still needs from the job's preferred warehouse first, then the others
@@ -34,19 +42,29 @@ export type ReservationPlan = Awaited<ReturnType<typeof reservationPlan>>;
  * bins in pick order. What is still short becomes a backorder, unless the job is only a quote.
  * Lock order as in ledger.ts: the parts, their level rows, then the job. (The job's backorders
  * are only ever written under their part's lock, which this transaction holds for every line.)
- * Few round trips while the locks are held: the writes go as one statement each.
+ * Few round trips while the locks are held: the level rows and the job in one statement, every
+ * write in one more, each a prepared statement.
  */
 export async function reserveInTx(tx: Tx, jobId: string, plan: ReservationPlan, opts: { userId: string | null; now: Date; quoteHoldMs: number; firmUpOnly?: boolean }): Promise<ReserveOutcome> {
   const { lines, partIds, whRows, binRows, defaults } = plan;
-  const levels = await lockPartLevels(tx, partIds);
+  // Step 0 of the lock order (the parts) on its own, so the next statement's snapshot sees every
+  // level row committed before the part locks were granted. Then the level rows (step 1) and the
+  // job (step 3) in one statement: with the parts held, no other transaction locks these level
+  // rows, so the order of those two cannot close a circle.
+  await lockParts(tx, partIds);
   // The job as it is now, under its lock: another request may have reserved, ordered or cancelled it meanwhile.
-  const jobRows = await tx.execute<{ status: string; preferred_warehouse_id: string | null; held: Record<string, number> | null; quote_holds: boolean }>(sql`
-    select j.status, j.preferred_warehouse_id,
+  const jobRows = await executePrepared<{ levels: LockedLevel[]; status: string; preferred_warehouse_id: string | null; held: Record<string, number> | null; quote_holds: boolean }>(tx, sql`
+    select
+      (select coalesce(json_agg(json_build_object('partId', lv.part_id, 'warehouseId', lv.warehouse_id, 'bin', lv.bin, 'onHand', lv.on_hand, 'reserved', lv.reserved)), '[]')
+        from (select part_id, warehouse_id, bin, on_hand, reserved from stock_levels where part_id = any(${`{${partIds.join(',')}}`}::uuid[])
+              order by part_id, warehouse_id, bin collate "C" for update) lv) as levels,
+      j.status, j.preferred_warehouse_id,
       (select json_object_agg(r.job_line_id, r.qty) from (select job_line_id, sum(qty)::int as qty from reservations where job_line_id in (select id from job_lines where job_id = j.id) group by job_line_id) r) as held,
       exists (select 1 from reservations r join job_lines l on l.id = r.job_line_id where l.job_id = j.id and r.expires_at is not null) as quote_holds
     from jobs j where j.id = ${jobId} for update of j`);
   const job = jobRows.rows[0];
   if (!job) throw new NotFoundError('That job');
+  const levels = job.levels;
   if (!opts.firmUpOnly) assertReservable(job.status);
   const heldOf = new Map(Object.entries(job.held ?? {}));
   const full = lines.length > 0 && lines.every((l) => (heldOf.get(l.id) ?? 0) >= l.qty);
@@ -86,42 +104,50 @@ export async function reserveInTx(tx: Tx, jobId: string, plan: ReservationPlan, 
     else settled.push(line.id);
   }
 
+  // Every write goes in one statement (data-modifying CTEs touching different tables); the
+  // CHECK constraints on stock_levels still refuse more than on hand.
+  const writes: SQL[] = [];
   if (takes.length) {
-    const arr = (f: (t: (typeof takes)[number]) => string | number) => `{${takes.map((t) => `"${String(f(t)).replace(/["\\]/g, '\\$&')}"`).join(',')}}`;
-    await tx.execute(sql`
+    writes.push(sql`res as (
       insert into reservations (job_line_id, part_id, warehouse_id, bin, qty, needs_transfer, expires_at)
       select l, p, w, b, q, w <> coalesce(${preferred}::uuid, w), ${holdUntil}::timestamptz
-      from unnest(${arr((t) => t.lineId)}::uuid[], ${arr((t) => t.level.partId)}::uuid[], ${arr((t) => t.level.warehouseId)}::uuid[], ${arr((t) => t.level.bin)}::text[], ${arr((t) => t.qty)}::int[]) as x(l, p, w, b, q)
-      on conflict (job_line_id, warehouse_id, bin) do update set qty = reservations.qty + excluded.qty, expires_at = excluded.expires_at`);
-    // Per level row the units taken by all lines together (the CHECK constraint is the last line).
+      from unnest(${pgArray(takes.map((t) => t.lineId))}::uuid[], ${pgArray(takes.map((t) => t.level.partId))}::uuid[], ${pgArray(takes.map((t) => t.level.warehouseId))}::uuid[], ${pgArray(takes.map((t) => t.level.bin))}::text[], ${pgArray(takes.map((t) => t.qty))}::int[]) as x(l, p, w, b, q)
+      on conflict (job_line_id, warehouse_id, bin) do update set qty = reservations.qty + excluded.qty, expires_at = excluded.expires_at
+      returning 1)`);
+    // Per level row the units taken by all lines together (one update per row in a statement).
     const byLevel = new Map<string, { level: LockedLevel; qty: number }>();
     for (const t of takes) {
       const k = `${t.level.partId}|${t.level.warehouseId}|${t.level.bin}`;
       byLevel.set(k, { level: t.level, qty: (byLevel.get(k)?.qty ?? 0) + t.qty });
     }
     const rows = [...byLevel.values()];
-    const col = (f: (r: (typeof rows)[number]) => string | number) => `{${rows.map((r) => `"${String(f(r)).replace(/["\\]/g, '\\$&')}"`).join(',')}}`;
-    await tx.execute(sql`
+    writes.push(sql`lv as (
       update stock_levels s set reserved = s.reserved + x.q, updated_at = now()
-      from unnest(${col((r) => r.level.partId)}::uuid[], ${col((r) => r.level.warehouseId)}::uuid[], ${col((r) => r.level.bin)}::text[], ${col((r) => r.qty)}::int[]) as x(p, w, b, q)
-      where s.part_id = x.p and s.warehouse_id = x.w and s.bin = x.b`);
+      from unnest(${pgArray(rows.map((r) => r.level.partId))}::uuid[], ${pgArray(rows.map((r) => r.level.warehouseId))}::uuid[], ${pgArray(rows.map((r) => r.level.bin))}::text[], ${pgArray(rows.map((r) => r.qty))}::int[]) as x(p, w, b, q)
+      where s.part_id = x.p and s.warehouse_id = x.w and s.bin = x.b
+      returning 1)`);
   }
-  if (isQuote) return { reservedUnits, backorderedUnits: 0 };
-
   // Backorders keep their place in the queue (created_at) while they shrink; settled lines drop theirs.
-  if (waiting.length)
-    await tx.execute(sql`
-      insert into backorders (job_line_id, part_id, qty, created_at)
-      select l, p, q, ${opts.now}::timestamptz from unnest(${`{${waiting.map((w) => w.lineId).join(',')}}`}::uuid[], ${`{${waiting.map((w) => w.partId).join(',')}}`}::uuid[], ${`{${waiting.map((w) => w.qty).join(',')}}`}::int[]) as x(l, p, q)
-      on conflict (job_line_id) do update set qty = excluded.qty`);
-  if (settled.length) await tx.execute(sql`delete from backorders where job_line_id = any(${`{${settled.join(',')}}`}::uuid[])`);
-  // A firm reservation makes any quote holds on the job firm too.
-  if (job.quote_holds) await tx.execute(sql`update reservations set expires_at = null where expires_at is not null and job_line_id in (select id from job_lines where job_id = ${jobId})`);
+  // A draft's reservation is a quote: it queues for nothing and leaves the status alone.
   const status = waiting.length === 0 ? 'reserved' : 'part-reserved';
-  if (status !== job.status)
-    await tx.execute(sql`
-      with moved as (update jobs set status = ${status}, updated_at = ${opts.now} where id = ${jobId} returning id)
-      insert into job_status_history (job_id, status, user_id, at) select id, ${status}, ${opts.userId}, ${opts.now} from moved`);
+  if (!isQuote) {
+    if (waiting.length)
+      writes.push(sql`bo as (
+        insert into backorders (job_line_id, part_id, qty, created_at)
+        select l, p, q, ${opts.now}::timestamptz from unnest(${pgArray(waiting.map((w) => w.lineId))}::uuid[], ${pgArray(waiting.map((w) => w.partId))}::uuid[], ${pgArray(waiting.map((w) => w.qty))}::int[]) as x(l, p, q)
+        on conflict (job_line_id) do update set qty = excluded.qty
+        returning 1)`);
+    if (settled.length) writes.push(sql`bd as (delete from backorders where job_line_id = any(${pgArray(settled)}::uuid[]) returning 1)`);
+    if (status !== job.status)
+      writes.push(
+        sql`moved as (update jobs set status = ${status}, updated_at = ${opts.now} where id = ${jobId} returning id)`,
+        sql`hist as (insert into job_status_history (job_id, status, user_id, at) select id, ${status}, ${opts.userId}, ${opts.now} from moved returning 1)`,
+      );
+  }
+  if (writes.length) await executePrepared(tx, sql`with ${sql.join(writes, sql`, `)} select 1`);
+  if (isQuote) return { reservedUnits, backorderedUnits: 0 };
+  // A firm reservation makes any quote holds on the job firm too (after the upsert above: one change per row per statement).
+  if (job.quote_holds) await executePrepared(tx, sql`update reservations set expires_at = null where expires_at is not null and job_line_id in (select id from job_lines where job_id = ${jobId})`);
   return { reservedUnits, backorderedUnits: waiting.reduce((s, w) => s + w.qty, 0) };
 }
 
@@ -131,4 +157,9 @@ export function assertReservable(status: string) {
   if (status === 'closed') throw new ConflictError('This job is closed; its stock cannot be reserved.');
   if (status === 'reserved') throw new ConflictError('Every line of this job is already reserved.');
   if (!['draft', 'ordered', 'part-reserved'].includes(status)) throw new ConflictError(`This job is ${status}; reservations are settled once picking starts.`);
+}
+
+/** A PostgreSQL array literal of these values, sent as one parameter. */
+function pgArray(values: (string | number)[]) {
+  return `{${values.map((v) => `"${String(v).replace(/["\\]/g, '\\$&')}"`).join(',')}}`;
 }

@@ -222,7 +222,7 @@ async function reservations() {
   const r = await benchReservations(env.DATABASE_URL);
   const line: Line = {
     what: 'reservations on scarce parts, 16 clients',
-    figure: `${r.reservationsPerSecond} jobs/s vs single-row UPDATE ${r.singleRowUpdatesPerSecond} tx/s (ratio ${r.ratio}); oversold ${r.oversoldRows}`,
+    figure: `${r.reservationsPerSecond} jobs/s vs single-row UPDATE ${r.singleRowUpdatesPerSecond} tx/s (ratio ${r.ratio}; transaction alone ${r.transactionRatio}); oversold ${r.oversoldRows}; load ${r.loadAverage}`,
     target: '≥ 40 % of reference, 0 oversold',
     met: r.met,
   };
