@@ -1,18 +1,14 @@
 // Accessibility and phone layout in the browser: axe-core on every main page, a planner task
 // by keyboard alone, what axe cannot see (focus, shortcuts, announcements), and 390 px phones.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Locator, Page } from 'playwright-core';
-import { axeViolations, signInAs, startBrowserHarness, type BrowserHarness } from './support.ts';
+import type { Page } from 'playwright-core';
+import { axeViolations, signInAs, startBrowserHarness, type BrowserHarness, waitForText } from './support.ts';
 
 let h: BrowserHarness;
 beforeAll(async () => {
   h = await startBrowserHarness();
 });
 afterAll(() => h?.close());
-
-async function waitForText(locator: Locator, pattern: RegExp) {
-  await expect.poll(async () => (await locator.textContent()) ?? '', { timeout: 10_000 }).toMatch(pattern);
-}
 
 /** What has focus: its accessible-ish name (label, aria-label or text) and id. */
 const focused = (page: Page) =>

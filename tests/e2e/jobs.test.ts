@@ -1,17 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
-import type { Locator } from 'playwright-core';
-import { startBrowserHarness, signInAs, type BrowserHarness } from './support.ts';
+import { startBrowserHarness, signInAs, type BrowserHarness, waitForText } from './support.ts';
 
 let h: BrowserHarness;
 beforeAll(async () => {
   h = await startBrowserHarness();
 });
 afterAll(() => h?.close());
-
-async function waitForText(locator: Locator, pattern: RegExp) {
-  await expect.poll(async () => (await locator.textContent()) ?? '', { timeout: 15_000 }).toMatch(pattern);
-}
 
 describe('jobs', () => {
   it('an installer orders a saved plan as a job, the trade desk reserves it, and both see the backorders', async () => {

@@ -1,7 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Locator, Page } from 'playwright-core';
-import { startBrowserHarness, signInAs, type BrowserHarness } from './support.ts';
+import type { Page } from 'playwright-core';
+import { startBrowserHarness, signInAs, type BrowserHarness, waitForText } from './support.ts';
 
 let h: BrowserHarness;
 beforeAll(async () => {
@@ -11,10 +11,6 @@ afterAll(() => h?.close());
 
 /** "1,340 mm" → 1340 */
 const mmOf = (text: string | null) => Number(/([\d,]+)\s*mm/.exec(text ?? '')?.[1]?.replace(/,/g, ''));
-
-async function waitForText(locator: Locator, pattern: RegExp) {
-  await expect.poll(async () => (await locator.textContent()) ?? '', { timeout: 10_000 }).toMatch(pattern);
-}
 
 async function setModules(page: Page, n: number) {
   await page.getByLabel('Modules per stack').fill(String(n));

@@ -3,8 +3,8 @@ import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
-import { onTestFailed } from 'vitest';
+import { chromium, type Browser, type Locator, type Page } from 'playwright-core';
+import { expect, onTestFailed } from 'vitest';
 import { createTestApp, type TestApp } from '../support/app.ts';
 import { seedDemo } from '../../seed/demo.ts';
 import { DEMO_PASSWORD } from '../../seed/factories.ts';
@@ -75,4 +75,9 @@ export async function axeViolations(page: Page): Promise<string[]> {
     return result.violations.map((v) => ({ id: v.id, help: v.help, targets: v.nodes.map((n) => String(n.target[0])) }));
   });
   return violations.map((v) => `${v.id} (${v.help}): ${v.targets.slice(0, 5).join(', ')}`);
+}
+
+/** Waits until the element's text matches (the app renders as answers arrive). */
+export async function waitForText(locator: Locator, pattern: RegExp, timeout = 15_000) {
+  await expect.poll(async () => (await locator.textContent()) ?? '', { timeout }).toMatch(pattern);
 }
