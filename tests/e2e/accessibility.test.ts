@@ -319,7 +319,8 @@ describe('at 390 × 844 (a phone)', () => {
     await nav.getByRole('button', { name: 'Menu' }).click();
     await nav.getByRole('link', { name: 'Catalogue' }).click();
     await waitForText(page.getByRole('heading', { level: 1 }), /^Catalogue$/);
-    expect(await nav.getByRole('link', { name: 'Catalogue' }).isVisible()).toBe(false);
+    // The menu closes once the new page is shown (an effect after navigation): wait for it.
+    await expect.poll(() => nav.getByRole('link', { name: 'Catalogue' }).isVisible()).toBe(false);
   });
 });
 
