@@ -7,8 +7,9 @@ import { can } from '@shared/roles.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
 import type { CreateJobInput, JobListQuery, JobStatus } from '@shared/contracts/jobs.ts';
 import type { PlannerService } from './planner.ts';
+import { createReservationGroups } from './reservation-groups.ts';
 import { heldByLine, inStockTransaction, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
-import { assertReservable, reservationPlan, reserveInTx } from './reservations.ts';
+import { assertReservable, reservationPlan } from './reservations.ts';
 
 export interface JobDeps {
   db: Db;
@@ -26,6 +27,7 @@ const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code
 type JobRow = typeof jobs.$inferSelect;
 
 export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7 }: JobDeps) {
+  const reserveGrouped = createReservationGroups(db);
   const jobByIdQuery = db.select().from(jobs).where(eq(jobs.id, sql.placeholder('id'))).prepare('job_by_id');
   /** The job if the actor may see it; another company's job is "not found". */
   async function visibleJob(actor: Actor, id: string, tx: Db | Tx = db): Promise<JobRow> {
@@ -129,11 +131,11 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     });
   }
 
-  /** One transaction per job, retried on deadlock or serialization failure; the last check is the database's. */
+  /** Atomic per job (a savepoint in a group's transaction, retried on deadlock or serialization failure); the last check is the database's. */
   async function reserveJob(actor: Actor, jobId: string, firmUpOnly = false) {
     const plan = await reservationPlan(db, jobId);
     if (plan.lines.length === 0) throw new ConflictError('This job has no lines to reserve.');
-    return inStockTransaction(db, (tx) => reserveInTx(tx, jobId, plan, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly }));
+    return reserveGrouped(jobId, plan, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly });
   }
 
   return {

@@ -49,17 +49,24 @@ export async function inStockTransaction<T>(db: Db, fn: (tx: Tx) => Promise<T>, 
     try {
       return await db.transaction(fn);
     } catch (e) {
-      const code = pgCode(e);
-      if ((code === '40001' || code === '40P01') && attempt < attempts) {
+      if (isRetryable(e) && attempt < attempts) {
         await new Promise((r) => setTimeout(r, Math.random() * 5 * attempt));
         continue;
       }
-      if (code === '23514' && /^stock_/.test(pgConstraint(e) ?? '')) {
-        throw new ConflictError('There is not enough stock for that: it would take on hand below zero or below what is reserved.', { constraint: pgConstraint(e) });
-      }
-      throw e;
+      throw stockError(e);
     }
   }
+}
+
+/** A deadlock or serialization failure: running the whole transaction again cures it. */
+export const isRetryable = (e: unknown) => ['40001', '40P01'].includes(pgCode(e) ?? '');
+
+/** The error a caller sees: a breach of a stock CHECK constraint becomes a 409 saying what is short. */
+export function stockError(e: unknown) {
+  if (pgCode(e) === '23514' && /^stock_/.test(pgConstraint(e) ?? '')) {
+    return new ConflictError('There is not enough stock for that: it would take on hand below zero or below what is reserved.', { constraint: pgConstraint(e) });
+  }
+  return e;
 }
 
 /**

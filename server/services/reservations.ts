@@ -9,6 +9,14 @@ export interface ReserveOutcome {
   backorderedUnits: number;
 }
 
+export interface ReserveOptions {
+  userId: string | null;
+  now: Date;
+  quoteHoldMs: number;
+  /** Only make quote holds firm (ordering a job that already holds stock); no status checks. */
+  firmUpOnly?: boolean;
+}
+
 export interface ReservationPlan {
   lines: { id: string; partId: string; qty: number }[];
   partIds: string[];
@@ -45,7 +53,7 @@ export async function reservationPlan(db: Db | Tx, jobId: string): Promise<Reser
  * Few round trips while the locks are held: the level rows and the job in one statement, every
  * write in one more, each a prepared statement.
  */
-export async function reserveInTx(tx: Tx, jobId: string, plan: ReservationPlan, opts: { userId: string | null; now: Date; quoteHoldMs: number; firmUpOnly?: boolean }): Promise<ReserveOutcome> {
+export async function reserveInTx(tx: Tx, jobId: string, plan: ReservationPlan, opts: ReserveOptions): Promise<ReserveOutcome> {
   const { lines, partIds, whRows, binRows, defaults } = plan;
   // Step 0 of the lock order (the parts) on its own, so the next statement's snapshot sees every
   // level row committed before the part locks were granted. Then the level rows (step 1) and the

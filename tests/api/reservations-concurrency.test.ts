@@ -8,6 +8,8 @@ import { createDb, type Db } from '../../server/db/client.ts';
 import { createJobService } from '../../server/services/jobs.ts';
 import { createStockService } from '../../server/services/stock.ts';
 import type { Actor } from '../../server/policies/actor.ts';
+import { createReservationGroups } from '../../server/services/reservation-groups.ts';
+import { reservationPlan } from '../../server/services/reservations.ts';
 
 let t: TestApp;
 let sales: Actor;
@@ -159,5 +161,31 @@ describe('concurrent reservations on scarce stock', () => {
       ['reserved', 3, 0],
       ['part-reserved', 0, 3],
     ]));
+  });
+
+  it('reservations waiting for a commit share the next one; a refused job gets its own 409 and changes nothing, the others are reserved', async () => {
+    const parts = await scarceStock();
+    const skus = parts.map((p) => p.sku);
+    const { ids } = await orderedJobs(8, skus, sequence(42));
+    await t.services.jobs.cancel(sales, ids[3]!);
+    let transactions = 0;
+    const counting = Object.create(t.db) as Db;
+    counting.transaction = ((fn: Parameters<Db['transaction']>[0]) => (transactions++, t.db.transaction(fn))) as Db['transaction'];
+    const reserve = createReservationGroups(counting);
+    const plans = await Promise.all(ids.map((id) => reservationPlan(t.db, id)));
+    const opts = { userId: sales.userId, now: new Date(), quoteHoldMs: 0 };
+    const results = await Promise.allSettled(ids.map((id, i) => reserve(id, plans[i]!, opts)));
+
+    // The first starts alone; the seven asked for while it commits go together (group commit).
+    expect(transactions).toBe(2);
+    expect(results.map((r) => r.status)).toEqual(['fulfilled', 'fulfilled', 'fulfilled', 'rejected', 'fulfilled', 'fulfilled', 'fulfilled', 'fulfilled']);
+    expect((results[3] as PromiseRejectedResult).reason).toMatchObject({ status: 409, message: expect.stringMatching(/cancelled/) });
+    const cancelledHolds = await t.db.execute<{ n: number }>(sql`select count(*)::int as n from reservations r join job_lines l on l.id = r.job_line_id where l.job_id = ${ids[3]}`);
+    expect(cancelledHolds.rows[0]!.n).toBe(0);
+    const states = await t.db.execute<{ id: string; status: string }>(sql`select id, status from jobs where id = any(${`{${ids.join(',')}}`}::uuid[])`);
+    const status = new Map(states.rows.map((r) => [r.id, r.status]));
+    ids.forEach((id, i) => expect(status.get(id)).toEqual(i === 3 ? 'cancelled' : expect.stringMatching(/^(reserved|part-reserved)$/)));
+    const after = await totals(skus);
+    for (const sku of skus) expect(after.get(sku)!.over).toBe(0);
   });
 });
