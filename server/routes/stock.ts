@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { text } from '@shared/contracts/text.ts';
-import { AdjustmentSchema, BinInputSchema, CountSchema, DefaultBinSchema, LedgerResultSchema, LowStockSchema, MovementQuerySchema, MovementSchema, ReceiptSchema, ReturnSchema, StockLevelSchema, StockLimitSchema, StockQuerySchema, TransferSchema, WarehouseInputSchema, WarehouseSchema } from '@shared/contracts/stock.ts';
+import { AdjustmentSchema, BinInputSchema, CountSchema, DefaultBinSchema, LedgerResultSchema, LowStockSchema, MovementQuerySchema, MovementSchema, PartStockSettingsSchema, ReceiptSchema, ReturnSchema, StockLevelSchema, StockLimitSchema, StockQuerySchema, TransferSchema, WarehouseInputSchema, WarehouseSchema } from '@shared/contracts/stock.ts';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
 import { presentMovement } from '../presenters/stock.ts';
@@ -29,6 +29,9 @@ export function stockRoutes(api: Api, { stock }: Pick<AppDeps, 'stock'>) {
   api.route({ method: 'post', path: '/stock/receipts', summary: 'Receive goods; waiting backorders are filled oldest first (filledJobs)', tag: 'stock', ability: 'stock.receive', body: ReceiptSchema, response: Ledger, status: 201 }, async ({ actor, body }) => ({ data: await stock.receive(actor, body) }));
   api.route({ method: 'post', path: '/stock/returns', summary: 'Book returned units back into a bin', tag: 'stock', ability: 'stock.receive', body: ReturnSchema, response: Ledger, status: 201 }, async ({ actor, body }) => ({ data: await stock.returnStock(actor, body) }));
 
+  api.route({ method: 'get', path: '/stock/settings/:sku', summary: 'A part’s minimum and maximum stock and its default bin per warehouse', tag: 'stock', ability: 'stock.view', params: z.object({ sku: text().min(1).max(64) }), response: z.object({ data: PartStockSettingsSchema }) }, async ({ actor, params }) => ({
+    data: await stock.partSettings(actor, params.sku),
+  }));
   api.route({ method: 'put', path: '/stock/limits/:sku', summary: 'A part’s minimum and maximum stock', tag: 'stock', ability: 'stock.limits', params: z.object({ sku: text().min(1).max(64) }), body: StockLimitSchema, response: z.object({ data: z.object({ sku: text(), min: z.number(), max: z.number() }) }) }, async ({ actor, params, body }) => ({
     data: await stock.setLimits(actor, params.sku, body),
   }));

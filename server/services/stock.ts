@@ -200,6 +200,17 @@ export function createStockService({ db, now = () => new Date() }: StockDeps) {
       return rows.rows.map((r) => ({ sku: r.sku, name: r.name, onHand: r.on_hand, available: r.available, backordered: r.backordered, min: r.min, max: r.max, toMax: Math.max(0, r.max - (r.available - r.backordered)) }));
     },
 
+    /** The part's minimum and maximum and its default bins, for the part page's stock settings. */
+    async partSettings(actor: Actor, sku: string) {
+      authorize(actor, 'stock.view');
+      const part = await onePart(sku);
+      const [[limits], defaults] = await Promise.all([
+        db.select({ min: stockLimits.minQty, max: stockLimits.maxQty }).from(stockLimits).where(eq(stockLimits.partId, part.id)),
+        db.select({ warehouse: warehouses.code, bin: defaultBins.bin }).from(defaultBins).innerJoin(warehouses, eq(warehouses.id, defaultBins.warehouseId)).where(eq(defaultBins.partId, part.id)).orderBy(asc(warehouses.rank), asc(warehouses.code)),
+      ]);
+      return { sku: part.sku, limits: limits ?? null, defaultBins: defaults };
+    },
+
     async setLimits(actor: Actor, sku: string, limits: { min: number; max: number }) {
       authorize(actor, 'stock.limits');
       const part = await onePart(sku);

@@ -145,6 +145,16 @@ export type WarehouseInput = z.infer<typeof WarehouseInputSchema>;
 export const BinInputSchema = z.strictObject({ code, pickOrder: z.number().int().min(0).max(1_000_000) });
 export type BinInput = z.infer<typeof BinInputSchema>;
 export const DefaultBinSchema = z.strictObject({ sku, warehouse, bin });
+export type DefaultBinInput = z.infer<typeof DefaultBinSchema>;
+export type StockLimitInput = z.infer<typeof StockLimitSchema>;
+
+/** A part's stock settings: its minimum and maximum (all warehouses), its default bin per warehouse. */
+export const PartStockSettingsSchema = z.object({
+  sku: text(),
+  limits: z.object({ min: z.number(), max: z.number() }).nullable(),
+  defaultBins: z.array(z.object({ warehouse: text(), bin: text() })),
+});
+export type PartStockSettings = z.infer<typeof PartStockSettingsSchema>;
 
 export const WarehouseSchema = z.object({
   id: text(),

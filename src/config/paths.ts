@@ -14,7 +14,7 @@ export const paths = {
   jobs: { path: '/jobs', href: () => '/jobs' },
   jobNew: { path: '/jobs/new', href: (planId?: string) => (planId ? `/jobs/new?plan=${encodeURIComponent(planId)}` : '/jobs/new') },
   job: { path: '/jobs/:id', href: (id: string) => `/jobs/${encodeURIComponent(id)}` },
-  stock: { path: '/stock', href: () => '/stock' },
+  stock: { path: '/stock', href: (search?: string) => (search ? `/stock?${search}` : '/stock') },
   stockMovements: { path: '/stock/movements', href: (search?: string) => (search ? `/stock/movements?${search}` : '/stock/movements') },
   stockEntry: { path: '/stock/entry', href: () => '/stock/entry' },
   stockLow: { path: '/stock/low', href: () => '/stock/low' },

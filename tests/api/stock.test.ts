@@ -155,6 +155,8 @@ describe('the ledger', () => {
     const low = (await sales.get('/api/stock/low')).body.data as { sku: string; toMax: number }[];
     expect(low.find((l) => l.sku === p.sku)).toMatchObject({ available: 3, min: 5, max: 20, toMax: 17 });
     expect((await warehouse.put(`/api/stock/limits/${p.sku}`).set('origin', TEST_ORIGIN).send({ min: 5, max: 2 })).status).toBe(400);
+    // The refused change left the saved levels alone; the part page reads them back.
+    expect((await sales.get(`/api/stock/settings/${p.sku}`)).body.data).toMatchObject({ sku: p.sku, limits: { min: 5, max: 20 }, defaultBins: [] });
   });
 
   it('lets admin manage warehouses, bins and default bins', async () => {
@@ -168,6 +170,8 @@ describe('the ledger', () => {
     // Receiving without a bin goes to the default bin.
     expect((await post(admin, '/api/stock/receipts', { warehouse: 'SOUTH', lines: [{ sku: p.sku, qty: 2 }] })).status).toBe(201);
     expect(await level(p.sku, 'SOUTH')).toMatchObject([{ bin: 'S-01', onHand: 2 }]);
+    expect((await sales.get(`/api/stock/settings/${p.sku}`)).body.data).toEqual({ sku: p.sku, limits: null, defaultBins: [{ warehouse: 'SOUTH', bin: 'S-01' }] });
+    expect((await sales.get('/api/stock/settings/NO-SUCH-SKU')).status).toBe(400);
     const list = (await sales.get('/api/warehouses')).body.data as { code: string; bins: { code: string }[] }[];
     expect(list.find((w) => w.code === 'SOUTH')!.bins.map((b) => b.code)).toEqual(['S-01']);
   });

@@ -106,6 +106,7 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'POST /api/stock/transfers': { allow: storemen },
   'POST /api/stock/receipts': { allow: storemen },
   'POST /api/stock/returns': { allow: storemen },
+  'GET /api/stock/settings/{sku}': { allow: staff, params: { sku: 'sku' } },
   'PUT /api/stock/limits/{sku}': { allow: ['admin', 'purchasing', 'warehouse'], params: { sku: 'sku' } },
   'PUT /api/stock/default-bins': { allow: admins },
   'GET /api/warehouses': { allow: staff },

@@ -15,6 +15,8 @@ import { MediaUpload } from '@/features/catalogue/components/media-upload.tsx';
 import { PartSpecs, formatDimensions, packText } from '@/features/catalogue/components/part-specs.tsx';
 import { DangerousGoodsNote } from '@/features/catalogue/components/dangerous-goods-note.tsx';
 import { StockBars } from '@/features/catalogue/components/stock-bars.tsx';
+import { hasAbility, useMe } from '@/features/auth/api/get-me.ts';
+import { PartStockSettingsPanel } from '@/features/stock/components/part-stock-settings.tsx';
 
 const linkClass = 'font-medium text-copper underline hover:text-copper-dark';
 
@@ -52,6 +54,7 @@ export function PartRoute() {
 }
 
 function PartView({ part }: { part: PartDetail }) {
+  const { data: me } = useMe();
   const archive = useArchivePart();
   const restore = useRestorePart();
   const canEdit = part.abilities.edit;
@@ -167,6 +170,13 @@ function PartView({ part }: { part: PartDetail }) {
             <h2 className="mb-2 text-sm font-semibold">Stock by warehouse</h2>
             <StockBars stock={part.stock} />
           </Card>
+
+          {hasAbility(me, 'stock.view') && (
+            <Card className="p-3">
+              <h2 className="mb-2 text-sm font-semibold">Stock settings</h2>
+              <PartStockSettingsPanel sku={part.sku} canSetLimits={hasAbility(me, 'stock.limits')} canSetBins={hasAbility(me, 'warehouses.manage')} />
+            </Card>
+          )}
         </div>
       </div>
 

@@ -6,4 +6,5 @@ export const stockKeys = {
   movements: (q: Partial<MovementQuery>) => [...stockKeys.all, 'movements', q] as const,
   low: () => [...stockKeys.all, 'low'] as const,
   warehouses: () => [...stockKeys.all, 'warehouses'] as const,
+  settings: (sku: string) => [...stockKeys.all, 'settings', sku] as const,
 };
