@@ -24,6 +24,7 @@ import { PartAttributesSchema } from '../shared/contracts/part-attributes.ts';
 import { BomRulesSchema } from '../shared/domain/bom-rules.ts';
 import { companyKindOf, type Role } from '../shared/roles.ts';
 import type { DemoMaker, DemoPart, DemoRange } from './data/catalogue.ts';
+import { partColumns } from '../server/services/catalogue.ts';
 
 let counter = 0;
 const next = () => `${Date.now().toString(36)}${(counter++).toString(36)}`;
@@ -108,30 +109,7 @@ export async function makePart(db: DbOrTx, spec: PartSpec = {}) {
   if (p.supersededBy && !successor) throw new Error(`makePart: ${p.sku} is superseded by ${p.supersededBy}, which does not exist yet`);
   const [row] = await db
     .insert(parts)
-    .values({
-      sku: p.sku,
-      name: p.name,
-      category: p.category,
-      makerId: maker.id,
-      description: p.description,
-      gtin: p.gtin ?? null,
-      unit: p.unit,
-      packSize: p.packSize,
-      massKg: p.massKg,
-      widthMm: p.widthMm ?? null,
-      heightMm: p.heightMm ?? null,
-      depthMm: p.depthMm ?? null,
-      ipRating: p.ipRating ?? null,
-      lifecycle: p.lifecycle,
-      supersededById: successor?.id ?? null,
-      unNumber: p.dangerousGoods?.unNumber ?? null,
-      dgClass: p.dangerousGoods?.class ?? null,
-      whRating: p.dangerousGoods?.whRating ?? null,
-      costCents: p.costCents,
-      listPriceCents: p.listPriceCents,
-      attributes: PartAttributesSchema.parse(p.attributes),
-      compliance: p.compliance ?? null,
-    })
+    .values(partColumns({ ...p, attributes: PartAttributesSchema.parse(p.attributes) }, { makerId: maker.id, supersededById: successor?.id ?? null }))
     .returning();
   for (const s of p.supplierSkus ?? []) {
     const supplier = await makeSupplier(db, { code: s.supplier });

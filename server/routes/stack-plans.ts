@@ -1,37 +1,17 @@
 import { z } from 'zod';
 import { text } from '@shared/contracts/text.ts';
 import { InverterOptionSchema, RangeDetailSchema, RangeInputSchema, SavedPlanSchema, SavePlanSchema, StackPlanRequestSchema, StackPlanSchema, type StackPlanResult } from '@shared/contracts/stack-plans.ts';
-import { CATEGORY_LABELS, type CategoryCode } from '@shared/contracts/part-attributes.ts';
 import { sendCsv } from '../http/csv.ts';
-import { centsToDollars } from '@shared/domain/money.ts';
 import type { Response } from 'express';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
 import { renderPlanPdf } from '../documents/plan-pdf.ts';
-import { presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.ts';
+import { bomCsvRows, presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.ts';
 
 const IdParams = z.object({ id: text().min(1).max(64) });
 
 function sendBomCsv(res: Response, plan: StackPlanResult, fileName: string) {
-  const money = (cents: number | null) => (cents == null ? '' : centsToDollars(cents));
-  const lines = plan.bom.map((l) => ({
-    SKU: l.sku,
-    Part: l.name,
-    Category: CATEGORY_LABELS[l.category as CategoryCode] ?? l.category,
-    'Qty (units)': l.qtyUnits,
-    'Pack size': l.packSize,
-    Packs: l.packs,
-    'Length (m)': l.lengthM ?? '',
-    'Unit price ex GST': money(l.unitPriceCents),
-    'Line total ex GST': money(l.lineTotalCents),
-    Available: l.available,
-    Short: l.short,
-    Rules: l.ruleNumbers.join(' '),
-    Why: l.reason,
-  }));
-  // The totals follow the lines, in the line-total column, so a spreadsheet sums what we did.
-  const total = (label: string, cents: number) => ({ ...Object.fromEntries(Object.keys(lines[0] ?? {}).map((k) => [k, ''])), Part: label, 'Line total ex GST': money(cents) });
-  sendCsv(res, [...lines, total('Subtotal ex GST', plan.totals.subtotalCents), total('GST 10 %', plan.totals.gstCents), total('Total inc GST', plan.totals.totalCents)], fileName);
+  sendCsv(res, bomCsvRows(plan), fileName);
 }
 
 async function sendPlanPdf(res: Response, plan: StackPlanResult, title: string, fileName: string, preparedFor?: string) {

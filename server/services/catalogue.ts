@@ -131,33 +131,9 @@ export function createCatalogueService({ db, partsIndex, onPartsChanged = () => 
       });
   }
 
-  function columnsFrom(input: PartInputParsed, refs: { makerId: string; supersededById: string | null }, existing: PartRow | null) {
-    return {
-      sku: input.sku,
-      name: input.name,
-      category: input.attributes.category,
-      makerId: refs.makerId,
-      description: input.description,
-      gtin: input.gtin ?? null,
-      unit: input.unit,
-      packSize: input.packSize,
-      massKg: input.massKg,
-      widthMm: input.widthMm ?? null,
-      heightMm: input.heightMm ?? null,
-      depthMm: input.depthMm ?? null,
-      ipRating: input.ipRating ?? null,
-      lifecycle: input.lifecycle,
-      supersededById: refs.supersededById,
-      unNumber: input.dangerousGoods?.unNumber ?? null,
-      dgClass: input.dangerousGoods?.class ?? null,
-      whRating: input.dangerousGoods?.whRating ?? null,
-      // Left out (a form for someone who may not see cost) keeps the cost; null clears it.
-      costCents: input.costCents === undefined ? (existing?.costCents ?? null) : input.costCents,
-      listPriceCents: input.listPriceCents ?? null,
-      attributes: input.attributes,
-      compliance: input.compliance ?? null,
-      updatedAt: new Date(),
-    };
+  function columnsFrom(input: PartInputParsed, refs: PartRefs, existing: PartRow | null) {
+    // Left out (a form for someone who may not see cost) keeps the cost; null clears it.
+    return { ...partColumns(input, refs), costCents: input.costCents === undefined ? (existing?.costCents ?? null) : input.costCents };
   }
 
   /** Writes a part and its supplier SKUs, then updates the index before committing, so both agree. */
@@ -317,4 +293,36 @@ function uniqueViolation(e: unknown) {
     return new ConflictError('A part with that SKU already exists.', { fields: [{ path: 'sku', message: 'Already in use by another part.' }] });
   if (cause.constraint?.includes('gtin')) return new ConflictError('Another part already has that GTIN.', { fields: [{ path: 'gtin', message: 'Already on another part.' }] });
   return new ConflictError('That supplier SKU already belongs to another part.', { fields: [{ path: 'supplierSkus', message: 'Already on another part.' }] });
+}
+
+type PartRefs = { makerId: string; supersededById: string | null };
+type PartColumnsInput = Pick<PartInputParsed, 'sku' | 'name' | 'description' | 'gtin' | 'unit' | 'packSize' | 'massKg' | 'widthMm' | 'heightMm' | 'depthMm' | 'ipRating' | 'lifecycle' | 'dangerousGoods' | 'listPriceCents' | 'attributes' | 'compliance'> & { costCents?: number | null };
+
+/** A part's row from its input: one mapping for the catalogue's writes and the seed/test factories. */
+export function partColumns(input: PartColumnsInput, refs: PartRefs) {
+  return {
+    sku: input.sku,
+    name: input.name,
+    category: input.attributes.category,
+    makerId: refs.makerId,
+    description: input.description,
+    gtin: input.gtin ?? null,
+    unit: input.unit,
+    packSize: input.packSize,
+    massKg: input.massKg,
+    widthMm: input.widthMm ?? null,
+    heightMm: input.heightMm ?? null,
+    depthMm: input.depthMm ?? null,
+    ipRating: input.ipRating ?? null,
+    lifecycle: input.lifecycle,
+    supersededById: refs.supersededById,
+    unNumber: input.dangerousGoods?.unNumber ?? null,
+    dgClass: input.dangerousGoods?.class ?? null,
+    whRating: input.dangerousGoods?.whRating ?? null,
+    costCents: input.costCents ?? null,
+    listPriceCents: input.listPriceCents ?? null,
+    attributes: input.attributes,
+    compliance: input.compliance ?? null,
+    updatedAt: new Date(),
+  };
 }

@@ -30,6 +30,14 @@ export function formatDate(value: string | Date) {
   return Number.isNaN(d.getTime()) ? String(value) : MOMENT_DATE.format(d);
 }
 
+const MOMENT_TIME = new Intl.DateTimeFormat(DATE_LOCALE, { ...DATE_OPTIONS, hour: 'numeric', minute: '2-digit' });
+
+/** A moment with its time of day, where the reader is: "3 Dec 2026, 4:55 pm" in en-AU. */
+export function formatDateTime(value: string | Date) {
+  const d = typeof value === 'string' ? new Date(value) : value;
+  return Number.isNaN(d.getTime()) ? String(value) : MOMENT_TIME.format(d);
+}
+
 /** File sizes as people read them: "840 KB", "4.2 MB". */
 export function formatBytes(bytes: number) {
   if (bytes < 1024) return `${bytes} B`;

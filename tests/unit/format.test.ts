@@ -1,6 +1,6 @@
 // The client's one date format and money display, outside the browser (en-AU, the default locale).
 import { describe, expect, it } from 'vitest';
-import { formatCost, formatDate, formatMoney } from '../../src/lib/format.ts';
+import { formatCost, formatDate, formatDateTime, formatMoney } from '../../src/lib/format.ts';
 
 describe('dates', () => {
   it('writes a calendar date and a timestamp the same way', () => {
@@ -10,6 +10,13 @@ describe('dates', () => {
     // A calendar date is that day wherever the reader is (no shift to the day before in UTC−).
     expect(formatDate(new Date(2026, 11, 3, 12))).toBe('3 Dec 2026');
     expect(formatDate('not a date')).toBe('not a date');
+  });
+
+  it('writes a moment with its time of day in the reader\'s zone', () => {
+    // CLDR en-AU: the date as above, then h:mm with a lower-case am/pm (Node's ICU data).
+    expect(formatDateTime(new Date(2026, 11, 3, 16, 55))).toMatch(/^3 Dec 2026, 4:55\s?pm$/);
+    expect(formatDateTime(new Date(2026, 0, 9, 9, 5))).toMatch(/^9 Jan 2026, 9:05\s?am$/);
+    expect(formatDateTime('nonsense')).toBe('nonsense');
   });
 });
 

@@ -1,5 +1,5 @@
 import { Link, useParams } from 'react-router';
-import { Page, Card } from '@/components/ui/page.tsx';
+import { Page, PageLoading, Card } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
 import { formatNumber, formatDate } from '@/lib/format.ts';
@@ -26,11 +26,7 @@ export function JobRoute() {
     );
   }
   if (!job.data) {
-    return (
-      <Page title="Job">
-        <p className="text-sm text-ink-soft">Loading the job…</p>
-      </Page>
-    );
+    return <PageLoading title="Job" what="the job" />;
   }
   const j = job.data;
   const site = [j.siteSuburb, j.sitePostcode].filter(Boolean).join(' ');

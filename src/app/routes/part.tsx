@@ -1,7 +1,7 @@
 import { Link, useParams } from 'react-router';
 import type { PartDetail } from '@shared/contracts/parts.ts';
 import { CATEGORY_LABELS } from '@shared/contracts/part-attributes.ts';
-import { Page, Card } from '@/components/ui/page.tsx';
+import { Page, Card, PageLoading } from '@/components/ui/page.tsx';
 import { Button } from '@/components/ui/button.tsx';
 import { Notice, StatusTag } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
@@ -24,12 +24,7 @@ export function PartRoute() {
   const { sku = '' } = useParams();
   const { data: part, error, isLoading } = usePart(sku);
 
-  if (isLoading)
-    return (
-      <Page title={sku}>
-        <p className="text-ink-soft">Loading the part…</p>
-      </Page>
-    );
+  if (isLoading) return <PageLoading title={sku} what="the part" />;
   if (error || !part) {
     const missing = error instanceof ApiError && error.status === 404;
     return (

@@ -1,6 +1,6 @@
 import { Link, useParams } from 'react-router';
 import { useQuery } from '@tanstack/react-query';
-import { Page } from '@/components/ui/page.tsx';
+import { Page, PageLoading } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
 import { formatDate } from '@/lib/format.ts';
@@ -57,11 +57,7 @@ export function SavedPlanRoute() {
     );
   }
   if (!saved.data || !plan) {
-    return (
-      <Page title="Saved plan">
-        <p className="text-sm text-ink-soft">Loading the plan…</p>
-      </Page>
-    );
+    return <PageLoading title="Saved plan" what="the plan" />;
   }
   const s = saved.data;
   const site = [s.siteSuburb, s.sitePostcode].filter(Boolean).join(' ');

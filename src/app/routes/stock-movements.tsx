@@ -6,6 +6,7 @@ import { Page } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { Pager } from '@/components/ui/pager.tsx';
 import { useUrlFilters } from '@/lib/use-url-filters.ts';
+import { formatDateTime } from '@/lib/format.ts';
 import { DataTable, PHONE_HIDDEN } from '@/components/ui/data-table.tsx';
 import { SelectField, TextField, optionsOf } from '@/components/ui/field.tsx';
 import { paths } from '@/config/paths.ts';
@@ -22,13 +23,13 @@ export function StockMovementsRoute() {
   const { data: warehouses = [] } = useWarehouses();
   const columns = useMemo<ColumnDef<Movement>[]>(
     () => [
-      { id: 'at', accessorKey: 'at', header: 'When', meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num whitespace-nowrap">{c.row.original.at.slice(0, 16).replace('T', ' ')}</span> },
+      { id: 'at', accessorKey: 'at', header: 'When', meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num whitespace-nowrap">{formatDateTime(c.row.original.at)}</span> },
       { id: 'sku', accessorKey: 'sku', header: 'SKU',
         cell: (c) => (
           <>
             <span className="num font-semibold">{c.row.original.sku}</span>
             <span className="num block text-xs text-ink-soft sm:hidden">
-              {c.row.original.warehouse} {c.row.original.bin} · {c.row.original.at.slice(0, 10)}
+              {c.row.original.warehouse} {c.row.original.bin} · {formatDateTime(c.row.original.at)}
             </span>
           </>
         ),

@@ -74,3 +74,12 @@ export function FieldError({ id, children }: { id?: string; children: ReactNode 
     </p>
   );
 }
+
+/** The customer account a plan or job is for (staff choose; installers never see this). */
+export const CustomerSelect = forwardRef<HTMLSelectElement, { customers: readonly { id: string; name: string }[]; error?: string } & SelectHTMLAttributes<HTMLSelectElement>>(function CustomerSelect({ customers, error, ...props }, ref) {
+  return (
+    <SelectField ref={ref} label="Customer account" error={error} {...props} options={customers.map((c) => ({ value: c.id, label: c.name }))}>
+      <option value="">Choose a customer…</option>
+    </SelectField>
+  );
+});

@@ -22,3 +22,12 @@ export function Page({ title, actions, children, subtitle }: { title: string; su
 export function Card({ children, className = '' }: { children: ReactNode; className?: string }) {
   return <section className={`rounded-lg border border-line bg-card p-4 ${className}`}>{children}</section>;
 }
+
+/** A page whose record is still on its way. */
+export function PageLoading({ title, what }: { title: string; what: string }) {
+  return (
+    <Page title={title}>
+      <p className="text-sm text-ink-soft">Loading {what}…</p>
+    </Page>
+  );
+}

@@ -5,7 +5,7 @@ import { z } from 'zod';
 import type { Job } from '@shared/contracts/jobs.ts';
 import type { SavedPlan } from '@shared/contracts/stack-plans.ts';
 import { Button } from '@/components/ui/button.tsx';
-import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { CustomerSelect, SelectField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { applyServerErrors } from '@/lib/form-errors.ts';
 import { useCreateJob } from '../api/create-job.ts';
@@ -84,14 +84,7 @@ export function NewJobForm({ plans, customers, warehouses, initialPlanId, onCrea
       <div className="grid gap-3 rounded-lg border border-line bg-card p-4 sm:grid-cols-2 lg:grid-cols-3">
         <TextField label="Job reference" autoFocus placeholder="e.g. PO 4471 or 14 Fern St" error={err.reference?.message} {...form.register('reference')} />
         {customers !== null && (
-          <SelectField label="Customer account" error={err.companyId?.message} {...form.register('companyId')}>
-            <option value="">Choose a customer…</option>
-            {customers.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
-          </SelectField>
+          <CustomerSelect customers={customers} error={err.companyId?.message} {...form.register('companyId')} />
         )}
         {warehouses !== null && (
           <SelectField label="Preferred warehouse" error={err.preferredWarehouse?.message} hint="Reserved here first; others only when it is short." {...form.register('preferredWarehouse')}>

@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import type { SavedPlan, StackPlanRequest } from '@shared/contracts/stack-plans.ts';
 import { Button } from '@/components/ui/button.tsx';
-import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { CustomerSelect, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { applyServerErrors } from '@/lib/form-errors.ts';
 import { useCustomers } from '../api/get-customers.ts';
@@ -59,14 +59,7 @@ export function SavePlanForm({ request, forCustomer, ownCompany, onSaved, onCanc
       <TextField label="Site suburb" error={err.siteSuburb?.message} {...form.register('siteSuburb')} />
       <TextField label="Site postcode" inputMode="numeric" maxLength={4} mono className="max-w-32" error={err.sitePostcode?.message} {...form.register('sitePostcode')} />
       {forCustomer ? (
-        <SelectField label="Customer account" error={err.companyId?.message} {...form.register('companyId')}>
-          <option value="">Choose a customer…</option>
-          {customers.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
-        </SelectField>
+        <CustomerSelect customers={customers} error={err.companyId?.message} {...form.register('companyId')} />
       ) : (
         <p className="self-end pb-1.5 text-sm text-ink-soft">Saved for {ownCompany ?? 'your company'}.</p>
       )}
