@@ -49,6 +49,7 @@ export function jobRoutes(api: Api, { jobs }: Pick<AppDeps, 'jobs'>) {
     { verb: 'reserve', ability: 'jobs.reserve', summary: 'Reserve stock for every line in one transaction (a draft is held as a quote); what is short is backordered' },
     { verb: 'release', ability: 'jobs.reserve', summary: 'Release every unit the job holds and drop its backorders' },
     { verb: 'cancel', ability: 'jobs.cancel', summary: 'Cancel the job and release its stock' },
+    { verb: 'gather', ability: 'stock.transfer', summary: 'Move the units the job holds in other warehouses to its preferred warehouse (transfer out and in; the units stay the job’s)' },
   ] as const;
   for (const a of actions) {
     api.route({ method: 'post', path: `/jobs/:id/${a.verb}`, summary: a.summary, tag: 'jobs', ability: a.ability, params: IdParams, response: JobResponse }, async ({ actor, params }) => ({

@@ -8,7 +8,8 @@ import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
 import type { CreateJobInput, JobListQuery, JobStatus } from '@shared/contracts/jobs.ts';
 import type { PlannerService } from './planner.ts';
 import { createReservationGroups } from './reservation-groups.ts';
-import { heldByLine, inStockTransaction, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
+import { heldByLine, inStockTransaction, newReference, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
+import { gatherHolds } from './hold-transfers.ts';
 import { assertReservable, reservationPlan } from './reservations.ts';
 
 export interface JobDeps {
@@ -116,6 +117,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       reserve: can(actor.role, 'jobs.reserve') && ['draft', 'ordered', 'part-reserved'].includes(job.status) && !fullyHeld && (lines.length > 0 || plans.length > 0),
       release: can(actor.role, 'jobs.reserve') && BEFORE_PICKING.includes(job.status) && (holding || queue.length > 0),
       cancel: can(actor.role, 'jobs.cancel') && BEFORE_PICKING.includes(job.status),
+      gather: can(actor.role, 'stock.transfer') && (job.status === 'reserved' || job.status === 'part-reserved') && held.some((r) => r.needsTransfer),
     };
     const holdExpiresAt = held.reduce<Date | null>((min, r) => (r.expiresAt && (!min || r.expiresAt < min) ? r.expiresAt : min), null);
     return { job, company, preferred, plans, lines, held, queue, history, abilities, holdExpiresAt };
@@ -270,6 +272,23 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
         const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
         if (!BEFORE_PICKING.includes(locked!.status)) throw new ConflictError(`This job is ${locked!.status} and can no longer be cancelled.`);
         await record(tx, id, 'cancelled', actor.userId, units ? `Released ${units} reserved units` : null);
+      });
+      return detail(actor, id);
+    },
+
+    /** Moves the units the job holds in other warehouses to its preferred one (stock.transfer). */
+    async gather(actor: Actor, id: string) {
+      authorize(actor, 'stock.transfer');
+      const job = await visibleJob(actor, id);
+      if (job.status !== 'reserved' && job.status !== 'part-reserved') throw new ConflictError(`This job is ${job.status}; only reserved stock is moved between warehouses.`);
+      if (!job.preferredWarehouseId) throw new ConflictError('This job has no preferred warehouse to move its stock to.');
+      const [preferred] = await db.select({ id: warehouses.id, code: warehouses.code }).from(warehouses).where(eq(warehouses.id, job.preferredWarehouseId));
+      const reference = newReference('TRF', now());
+      await inStockTransaction(db, async (tx) => {
+        const { units } = await gatherHolds(tx, { jobId: id, preferred: preferred!, reference, userId: actor.userId });
+        const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+        if (locked!.status !== 'reserved' && locked!.status !== 'part-reserved') throw new ConflictError(`This job is ${locked!.status}; only reserved stock is moved between warehouses.`);
+        await tx.insert(jobStatusHistory).values({ jobId: id, status: locked!.status, userId: actor.userId, note: `Moved ${units} held units to ${preferred!.code} (${reference})`, at: now() });
       });
       return detail(actor, id);
     },

@@ -89,7 +89,7 @@ export const JobSchema = JobHeadSchema.extend({
   history: z.array(z.object({ status: z.enum(JOB_STATUSES), at: text(), by: text().nullable(), note: text().nullable() })),
   totals: z.object({ subtotalCents: z.number(), gstCents: z.number(), totalCents: z.number(), unpricedLines: z.number() }),
   /** What the signed-in user may do with this job now. */
-  abilities: z.object({ order: z.boolean(), reserve: z.boolean(), release: z.boolean(), cancel: z.boolean() }),
+  abilities: z.object({ order: z.boolean(), reserve: z.boolean(), release: z.boolean(), cancel: z.boolean(), gather: z.boolean() }),
 });
 export type Job = z.infer<typeof JobSchema>;
 

@@ -176,6 +176,39 @@ describe('company isolation', () => {
 });
 
 describe('reserving', () => {
+  it('moves units held in another warehouse to the job’s own, still reserved for it, with a transfer out and in', async () => {
+    const p = await stocked([
+      [north, 'N-2', 1],
+      [main, 'M-2', 4],
+    ]);
+    const job = await orderedJob(sales, [{ sku: p.sku, qty: 3 }], { companyId: installer.companyId, preferredWarehouse: 'JNTH' });
+    const reserved = (await sales.post(`/api/jobs/${job.id}/reserve`).expect(200)).body.data;
+    expect(reserved.abilities.gather).toBe(false); // sales reserve; the warehouse moves stock
+    expect((await warehouse.get(`/api/jobs/${job.id}`).expect(200)).body.data.abilities.gather).toBe(true);
+    // Sales and installers may not move stock; the warehouse may.
+    expect((await sales.post(`/api/jobs/${job.id}/gather`)).status).toBe(403);
+    expect((await installer.post(`/api/jobs/${job.id}/gather`)).status).toBe(403);
+    const res = await warehouse.post(`/api/jobs/${job.id}/gather`);
+    expect(res.status, res.text).toBe(200);
+    // 1 was already in JNTH's N-2 (its fullest bin there); the 2 from JMAIN follow them into it.
+    expect(res.body.data.reservations).toEqual([{ sku: p.sku, warehouse: 'JNTH', bin: 'N-2', qty: 3, needsTransfer: false, expiresAt: null }]);
+    expect(res.body.data.abilities.gather).toBe(false);
+    expect(res.body.data.status).toBe('reserved');
+    const levels = (await sales.get(`/api/stock?sku=${p.sku}`)).body.data as { warehouse: string; onHand: number; reserved: number }[];
+    expect(levels.map((l) => [l.warehouse, l.onHand, l.reserved]).sort()).toEqual([
+      ['JMAIN', 2, 0],
+      ['JNTH', 3, 3],
+    ]);
+    const moves = (await sales.get(`/api/stock/movements?sku=${p.sku}&kind=transfer-out`)).body.data as { qty: number; reference: string }[];
+    expect(moves).toMatchObject([{ qty: -2 }]);
+    // Nothing left to move: a clear 409 and nothing changes.
+    const before = await stockSnapshot(t.db);
+    const again = await warehouse.post(`/api/jobs/${job.id}/gather`);
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toMatch(/Nothing this job holds/);
+    expect(await stockSnapshot(t.db)).toEqual(before);
+  });
+
   it('takes the preferred warehouse first, then others (flagged as a transfer), and backorders the rest', async () => {
     const p = await stocked([
       [north, 'N-1', 3],

@@ -9,6 +9,7 @@ const LABELS: Record<JobAction, { label: string; busy: string; variant: 'primary
   reserve: { label: 'Reserve stock', busy: 'Reserving…', variant: 'primary' },
   release: { label: 'Release stock', busy: 'Releasing…', variant: 'secondary' },
   cancel: { label: 'Cancel job', busy: 'Cancelling…', variant: 'danger' },
+  gather: { label: 'Move held stock to this job’s warehouse', busy: 'Moving…', variant: 'secondary' },
 };
 
 /** The buttons the server says this user may press now (the job's `abilities`). */
