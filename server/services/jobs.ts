@@ -281,8 +281,10 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       authorize(actor, 'stock.transfer');
       const job = await visibleJob(actor, id);
       if (job.status !== 'reserved' && job.status !== 'part-reserved') throw new ConflictError(`This job is ${job.status}; only reserved stock is moved between warehouses.`);
-      if (!job.preferredWarehouseId) throw new ConflictError('This job has no preferred warehouse to move its stock to.');
-      const [preferred] = await db.select({ id: warehouses.id, code: warehouses.code }).from(warehouses).where(eq(warehouses.id, job.preferredWarehouseId));
+      // The warehouse its reservation took from first: the preferred one, else the first by rank.
+      const [preferred] = job.preferredWarehouseId
+        ? await db.select({ id: warehouses.id, code: warehouses.code }).from(warehouses).where(eq(warehouses.id, job.preferredWarehouseId))
+        : await db.select({ id: warehouses.id, code: warehouses.code }).from(warehouses).orderBy(asc(warehouses.rank), asc(warehouses.code)).limit(1);
       const reference = newReference('TRF', now());
       await inStockTransaction(db, async (tx) => {
         const { units } = await gatherHolds(tx, { jobId: id, preferred: preferred!, reference, userId: actor.userId });

@@ -209,6 +209,22 @@ describe('reserving', () => {
     expect(await stockSnapshot(t.db)).toEqual(before);
   });
 
+  it('without a preferred warehouse, moves held units to the one its reservation started from (first by rank)', async () => {
+    const p = await stocked([
+      [main, 'M-3', 1],
+      [north, 'N-3', 2],
+    ]);
+    const job = await orderedJob(sales, [{ sku: p.sku, qty: 3 }], { companyId: installer.companyId });
+    const reserved = (await sales.post(`/api/jobs/${job.id}/reserve`).expect(200)).body.data;
+    expect(reserved.reservations.map((r: { warehouse: string; needsTransfer: boolean }) => [r.warehouse, r.needsTransfer])).toEqual([
+      ['JMAIN', false],
+      ['JNTH', true],
+    ]);
+    const res = await warehouse.post(`/api/jobs/${job.id}/gather`);
+    expect(res.status, res.text).toBe(200);
+    expect(res.body.data.reservations).toEqual([{ sku: p.sku, warehouse: 'JMAIN', bin: 'M-3', qty: 3, needsTransfer: false, expiresAt: null }]);
+  });
+
   it('takes the preferred warehouse first, then others (flagged as a transfer), and backorders the rest', async () => {
     const p = await stocked([
       [north, 'N-1', 3],
