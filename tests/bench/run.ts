@@ -260,13 +260,16 @@ try {
     results[done.key] = done.result;
     lines.push(...done.lines);
   };
-  await run(searchOverhead());
-  await run(typing(allParts, null));
-  await run(memory());
-  await run(stackPlans());
-  await run(bundle());
-  await run(typing(await indexOnly(10_000), 50));
-  await run(reservations());
+  // `npm run bench -- --only=stackPlan,reservations` runs some of them (names as printed when done).
+  const only = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length).split(',');
+  const wanted = (name: string) => !only || only.includes(name);
+  if (wanted('searchOverhead')) await run(searchOverhead());
+  if (wanted('typing50k')) await run(typing(allParts, null));
+  if (wanted('memory')) await run(memory());
+  if (wanted('stackPlan')) await run(stackPlans());
+  if (wanted('bundle')) await run(bundle());
+  if (wanted('typing10k')) await run(typing(await indexOnly(10_000), 50));
+  if (wanted('reservations')) await run(reservations());
 } finally {
   await clients.close();
   await search.close();
