@@ -20,7 +20,8 @@ import {
   bins,
   defaultBins,
 } from '../server/db/schema/index.ts';
-import { PartAttributesSchema } from '../shared/contracts/part-attributes.ts';
+import { PartAttributesSchema, type CategoryCode, type PartAttributesInput } from '../shared/contracts/part-attributes.ts';
+import { gs1CheckDigit } from '../shared/domain/gtin.ts';
 import { BomRulesSchema } from '../shared/domain/bom-rules.ts';
 import { companyKindOf, type Role } from '../shared/roles.ts';
 import type { DemoMaker, DemoPart, DemoRange } from './data/catalogue.ts';
@@ -84,15 +85,41 @@ export async function makeSupplier(db: DbOrTx, fields: { code: string; name?: st
 
 export type PartSpec = Partial<Omit<DemoPart, 'maker'>> & { maker?: string };
 
+/** The least each category's attributes need: what a part given only its category carries. */
+const PLAIN_ATTRIBUTES: Record<CategoryCode, PartAttributesInput> = {
+  module: { category: 'module', nominalV: 51.2, ratedAh: 100, chemistry: 'LFP' },
+  controller: { category: 'controller', carriesCells: false },
+  feet: { category: 'feet', unitsPerSet: 4, heightMm: 80 },
+  'wall-bracket': { category: 'wall-bracket', fixing: 'masonry' },
+  'end-cap': { category: 'end-cap' },
+  'cable-set': { category: 'cable-set', lengthM: 2, crossSectionMm2: 35 },
+  'cable-cover': { category: 'cable-cover' },
+  'earth-lead': { category: 'earth-lead' },
+  'comms-terminator': { category: 'comms-terminator', protocol: 'CAN' },
+  inverter: { category: 'inverter', batteryMinV: 40, batteryMaxV: 60, batteryInputs: 1 },
+  accessory: { category: 'accessory' },
+};
+
+let gtinCounter = 0;
+/** A new valid GTIN-13 under GS1's documentation company prefix (0614141), item references 9xxxx. */
+export function makeGtin() {
+  const body = `0614141${String(90_000 + (gtinCounter++ % 10_000)).padStart(5, '0')}`;
+  return `${body}${gs1CheckDigit(body)}`;
+}
+
 /**
  * A part in the demo data's shape; anything left out is a plain wall bracket. Its maker and its
  * suppliers are created when missing; `supersededBy` names a part that must already exist.
  */
 export async function makePart(db: DbOrTx, spec: PartSpec = {}) {
+  const category = spec.attributes?.category ?? spec.category ?? 'wall-bracket';
+  if (spec.category && spec.category !== category) throw new Error(`makePart: category ${spec.category} but attributes of ${category}`);
+  const attributes = PartAttributesSchema.parse(spec.attributes ?? PLAIN_ATTRIBUTES[category]);
+  // Cells are dangerous goods (UN 3480, class 9) unless the spec says otherwise.
+  const cells = 'nominalV' in attributes && 'ratedAh' in attributes && attributes.nominalV && attributes.ratedAh ? attributes.nominalV * attributes.ratedAh : null;
   const p = {
     sku: `TST-${next().toUpperCase()}`,
-    name: 'Test wall bracket',
-    category: 'wall-bracket' as const,
+    name: `Test ${category.replace('-', ' ')}`,
     maker: 'HLM',
     description: '',
     unit: 'each' as const,
@@ -101,15 +128,17 @@ export async function makePart(db: DbOrTx, spec: PartSpec = {}) {
     lifecycle: 'active' as const,
     costCents: 1000,
     listPriceCents: 1500,
-    attributes: { category: 'wall-bracket', fixing: 'masonry' } as DemoPart['attributes'],
+    ...(cells ? { dangerousGoods: { unNumber: 'UN3480' as const, class: '9' as const, whRating: Math.round(cells * 10) / 10 } } : {}),
     ...spec,
+    category,
+    attributes,
   };
   const maker = await makeMaker(db, { code: p.maker });
   const [successor] = p.supersededBy ? await db.select({ id: parts.id }).from(parts).where(eq(parts.sku, p.supersededBy)) : [];
   if (p.supersededBy && !successor) throw new Error(`makePart: ${p.sku} is superseded by ${p.supersededBy}, which does not exist yet`);
   const [row] = await db
     .insert(parts)
-    .values(partColumns({ ...p, attributes: PartAttributesSchema.parse(p.attributes) }, { makerId: maker.id, supersededById: successor?.id ?? null }))
+    .values(partColumns(p, { makerId: maker.id, supersededById: successor?.id ?? null }))
     .returning();
   for (const s of p.supplierSkus ?? []) {
     const supplier = await makeSupplier(db, { code: s.supplier });
@@ -118,8 +147,31 @@ export async function makePart(db: DbOrTx, spec: PartSpec = {}) {
   return row!;
 }
 
-/** A range in the demo data's shape; every SKU it names must already exist. */
-export async function makeRange(db: DbOrTx, spec: DemoRange) {
+export type RangeSpec = Partial<Omit<DemoRange, 'maker'>> & { maker?: string };
+
+/**
+ * A range in the demo data's shape; anything left out is a small parallel range with no BOM
+ * rules. Its controller and module are made when not named; every other SKU it names must exist.
+ */
+export async function makeRange(db: DbOrTx, given: RangeSpec = {}) {
+  const code = given.code ?? `R${next().toUpperCase()}`;
+  const makerCode = given.maker ?? 'HLM';
+  const spec = {
+    code,
+    name: `Range ${code}`,
+    connection: 'parallel' as const,
+    controllerSku: given.controllerSku ?? (await makePart(db, { maker: makerCode, category: 'controller', name: `${code} controller` })).sku,
+    moduleSku: given.moduleSku ?? (await makePart(db, { maker: makerCode, category: 'module', name: `${code} battery module` })).sku,
+    minModules: 1,
+    maxModules: 4,
+    maxStacks: 1,
+    baseHeightMm: 80,
+    defaultDodPct: 90,
+    compatibleInverterSkus: [],
+    rules: [],
+    ...given,
+    maker: makerCode,
+  };
   const maker = await makeMaker(db, { code: spec.maker });
   const skus = [spec.controllerSku, spec.moduleSku, ...spec.compatibleInverterSkus];
   const found = await db.select({ id: parts.id, sku: parts.sku }).from(parts).where(inArray(parts.sku, skus));

@@ -3,22 +3,32 @@ import { readdirSync } from 'node:fs';
 import request from 'supertest';
 import sharp from 'sharp';
 import { createTestApp, type TestApp } from '../support/app.ts';
-import { seedCatalogue } from '../../seed/catalogue.ts';
-import { parts as demoParts } from '../../seed/data/catalogue.ts';
 import type { PartInput } from '../../shared/contracts/parts.ts';
-import { makeMaker, makePart } from '../../seed/factories.ts';
+import { makeGtin, makeMaker, makePart, makeRange, makeWarehouse, receiveStock } from '../../seed/factories.ts';
 import { eq } from 'drizzle-orm';
+import type { DbOrTx, Tx } from '../../server/db/client.ts';
 import { partMedia } from '../../server/db/schema/index.ts';
 
+// Each describe block builds the parts it needs with the seed's own factories; the catalogue
+// starts empty, so a count is the count of what the block built.
 let t: TestApp;
 beforeAll(async () => {
   t = await createTestApp();
-  await t.db.transaction((tx) => seedCatalogue(tx));
-  await t.services.partsIndex.rebuild(t.db);
+  await makeMaker(t.db, { code: 'HLM', name: 'Hollowmere Energy' }); // the maker newPart() names
 });
 afterAll(() => t.close());
 
-const withKestrelSku = demoParts.find((p) => p.supplierSkus?.some((s) => s.supplier === 'KESTREL') && p.gtin)!;
+/** Builds in one transaction, then sends every part to search through the app's own sync. */
+async function build<T>(make: (tx: Tx) => Promise<T>, app: TestApp = t): Promise<T> {
+  const made = await app.db.transaction(make);
+  await app.services.partsIndex.sync(app.db);
+  return made;
+}
+
+/** The two depots: Western comes first by rank, though its code sorts after Northern's. */
+async function depots(db: DbOrTx) {
+  return [await makeWarehouse(db, { code: 'WST', name: 'Western depot', rank: 1 }), await makeWarehouse(db, { code: 'NTH', name: 'Northern depot', rank: 2 })] as const;
+}
 
 function newPart(overrides: Partial<PartInput> = {}): PartInput {
   return {
@@ -33,6 +43,39 @@ function newPart(overrides: Partial<PartInput> = {}): PartInput {
 }
 
 describe('GET /api/parts', () => {
+  // A small catalogue from three makers: a SKU family (HLM-TOR-*) and parts that hold the same
+  // words spread over other fields (HLM-ACC-FIX-M, HLM-ACC-CAB, the inverter), controllers from
+  // two makers, a cable set beside a cable cover, and a part with a GTIN and a supplier's SKU;
+  // some stocked, some not.
+  let built: { sku: string }[];
+  let stockedSkus: string[];
+  let coded: { sku: string; gtin: string; supplierSku: string };
+  beforeAll(async () => {
+    coded = { sku: 'QRB-HRT-EC', gtin: makeGtin(), supplierSku: 'KT-520077' };
+    ({ built, stockedSkus } = await build(async (tx) => {
+      const specs = [
+        { sku: 'HLM-TOR-CTL', name: 'Tor HV controller', category: 'controller' as const },
+        { sku: 'HLM-TOR-M5', name: 'Tor HV battery module 5.1 kWh', category: 'module' as const },
+        { sku: 'HLM-TOR-M46', name: 'Tor HV battery module 4.6 kWh (first generation)', category: 'module' as const },
+        { sku: 'HLM-TOR-FEET', name: 'Tor adjustable feet, pack of 4', category: 'feet' as const },
+        { sku: 'HLM-TOR-WB-M', name: 'Tor wall bracket, masonry', category: 'wall-bracket' as const },
+        { sku: 'HLM-ACC-FIX-M', name: 'Masonry fixing kit for Tor brackets', category: 'accessory' as const, description: 'Four M8 sleeve anchors for one bracket on brick or block.' },
+        { sku: 'HLM-ACC-CAB', name: 'Tor outdoor battery cabinet', category: 'accessory' as const, description: 'Vented steel cabinet housing one Tor stack of up to 6 modules.' },
+        { sku: 'HLM-CCV-15', name: 'Battery cable protection cover, 1.5 m', category: 'cable-cover' as const },
+        { sku: 'HLM-CBL-015', name: 'Battery cable set 35 mm², 1.5 m', category: 'cable-set' as const },
+        { sku: 'QRB-HRT-CTL', name: 'Hearth controller', category: 'controller' as const, maker: 'QRB' },
+        { sku: coded.sku, name: 'Hearth end cap', category: 'end-cap' as const, maker: 'QRB', gtin: coded.gtin, supplierSkus: [{ supplier: 'KESTREL', sku: coded.supplierSku }] },
+        { sku: 'TVP-INV-15HV3', name: 'Tarrow hybrid inverter 15 kW', category: 'inverter' as const, maker: 'TVP', description: 'Takes Tor HV stacks of up to 8 modules.' },
+      ];
+      const rows = [];
+      for (const spec of specs) rows.push(await makePart(tx, spec));
+      const [wst, nth] = await depots(tx);
+      const stocked = rows.filter((r) => ['HLM-TOR-CTL', 'HLM-TOR-M5', 'HLM-TOR-FEET', 'HLM-CCV-15'].includes(r.sku));
+      await receiveStock(tx, stocked.flatMap((r, i) => [{ partId: r.id, warehouseId: wst.id, bin: `A-0${i + 1}-1`, onHand: 4 + i }, { partId: r.id, warehouseId: nth.id, bin: `B-0${i + 1}-1`, onHand: 2 }]));
+      return { built: rows, stockedSkus: stocked.map((r) => r.sku) };
+    }));
+  });
+
   it('needs a session', async () => {
     await request(t.app).get('/api/parts').expect(401);
   });
@@ -40,10 +83,10 @@ describe('GET /api/parts', () => {
   it('lists everything for an empty query, with facet counts that add up', async () => {
     const agent = await t.signIn('sales');
     const res = await agent.get('/api/parts').query({ pageSize: 10 }).expect(200);
-    expect(res.body.total).toBe(demoParts.length);
+    expect(res.body.total).toBe(built.length);
     expect(res.body.data).toHaveLength(10);
     const byCategory = Object.values(res.body.facets.category as Record<string, number>).reduce((a, b) => a + b, 0);
-    expect(byCategory).toBe(demoParts.length);
+    expect(byCategory).toBe(built.length);
     expect(Object.keys(res.body.facets.maker).sort()).toEqual(['HLM', 'QRB', 'TVP']);
   });
 
@@ -52,6 +95,7 @@ describe('GET /api/parts', () => {
     const res = await agent.get('/api/parts').query({ q: 'cable cov' }).expect(200);
     expect(res.body.total).toBeGreaterThan(0);
     expect(res.body.data[0].category).toBe('cable-cover');
+    expect(res.body.data[0].sku).toBe('HLM-CCV-15');
   });
 
   it('tolerates one typo ("controler")', async () => {
@@ -64,15 +108,18 @@ describe('GET /api/parts', () => {
     const agent = await t.signIn('sales');
     const all = await agent.get('/api/parts').expect(200);
     const controllers = all.body.facets.category.controller;
+    expect(controllers).toBe(2); // HLM-TOR-CTL and QRB-HRT-CTL
     const res = await agent.get('/api/parts').query({ category: 'controller', maker: 'HLM' }).expect(200);
     expect(res.body.data.every((p: { category: string; maker: string }) => p.category === 'controller' && p.maker === 'HLM')).toBe(true);
     expect(res.body.total).toBeLessThanOrEqual(controllers);
+    expect(res.body.data.map((p: { sku: string }) => p.sku)).toEqual(['HLM-TOR-CTL']);
     // the chosen facet keeps the counts of its other values, so a user can switch without clearing
     expect(res.body.facets.category.controller).toBe(res.body.total);
     expect(Object.keys(res.body.facets.category).length).toBeGreaterThan(1);
     const stocked = await agent.get('/api/parts').query({ inStock: 'true', pageSize: 200 }).expect(200);
     expect(stocked.body.data.every((p: { available: number }) => p.available > 0)).toBe(true);
     expect(stocked.body.total).toBe(all.body.facets.inStock.true);
+    expect(stocked.body.data.map((p: { sku: string }) => p.sku).sort()).toEqual([...stockedSkus].sort());
   });
 
   it('sorts by SKU descending', async () => {
@@ -111,6 +158,8 @@ describe('GET /api/parts', () => {
     const top = res.body.data.slice(0, 3).map((p: { sku: string }) => p.sku);
     expect(top.every((sku: string) => sku.startsWith('HLM-TOR-'))).toBe(true);
     expect(top).toContain('HLM-TOR-M5');
+    // the parts holding those words in other fields are found, below the family
+    expect(res.body.data.map((p: { sku: string }) => p.sku)).toContain('HLM-ACC-FIX-M');
   });
 
   it('jumps to a part whose code has letters only', async () => {
@@ -122,8 +171,8 @@ describe('GET /api/parts', () => {
 
   it('jumps to the part for an exact SKU, GTIN (also as GTIN-14) or supplier SKU', async () => {
     const agent = await t.signIn('warehouse');
-    const p = withKestrelSku;
-    for (const code of [p.sku.toLowerCase(), p.gtin!, `0${p.gtin!}`, p.supplierSkus![0]!.sku]) {
+    const p = coded;
+    for (const code of [p.sku.toLowerCase(), p.gtin, `0${p.gtin}`, p.supplierSku]) {
       const res = await agent.get('/api/parts').query({ q: code }).expect(200);
       expect(res.body.exactSku).toBe(p.sku);
     }
@@ -141,7 +190,22 @@ describe('GET /api/parts', () => {
 });
 
 describe('GET /api/parts/:sku', () => {
-  const module = demoParts.find((p) => p.category === 'module' && p.lifecycle === 'active')!;
+  // A battery module (cells: dangerous goods) stocked in both depots, and a superseded part.
+  let module: { sku: string; costCents: number | null };
+  let old: { sku: string; supersededBy: string };
+  beforeAll(async () => {
+    ({ module, old } = await build(async (tx) => {
+      const made = await makePart(tx, { category: 'module', name: 'Kettlewick battery module 5.1 kWh', costCents: 187_550 });
+      const [wst, nth] = await depots(tx);
+      await receiveStock(tx, [
+        { partId: made.id, warehouseId: nth.id, bin: 'N-01-1', onHand: 3 },
+        { partId: made.id, warehouseId: wst.id, bin: 'W-01-1', onHand: 7 },
+      ]);
+      const successor = await makePart(tx, { name: 'Kettlewick feet, second generation', category: 'feet' });
+      const older = await makePart(tx, { name: 'Kettlewick feet, first generation', category: 'feet', lifecycle: 'superseded', supersededBy: successor.sku });
+      return { module: made, old: { sku: older.sku, supersededBy: successor.sku } };
+    }));
+  });
 
   it('hides cost, supplier SKUs and on-hand from installers', async () => {
     const agent = await t.signIn('installer');
@@ -159,6 +223,7 @@ describe('GET /api/parts/:sku', () => {
     const res = await agent.get(`/api/parts/${module.sku}`).expect(200);
     expect(res.body.data).not.toHaveProperty('costCents');
     expect(res.body.data.stock[0]).toHaveProperty('onHand');
+    expect(res.body.data.stock.map((s: { onHand: number }) => s.onHand)).toEqual([7, 3]);
   });
 
   it('shows cost to purchasing, with stock per warehouse', async () => {
@@ -171,13 +236,13 @@ describe('GET /api/parts/:sku', () => {
 
   it('keeps a part’s cost when a save leaves cost out, and clears it only on an explicit null', async () => {
     const agent = await t.signIn('purchasing');
-    const input = newPart({ sku: 'TST-COST-1', costCents: 4321 });
+    const input = newPart({ sku: 'TST-KEPT-1', costCents: 4321 });
     await agent.post('/api/parts').send(input).expect(201);
     const { costCents: _left, ...withoutCost } = input;
-    await agent.patch('/api/parts/TST-COST-1').send({ ...withoutCost, name: 'Renamed, cost untouched' }).expect(200);
-    expect((await agent.get('/api/parts/TST-COST-1').expect(200)).body.data.costCents).toBe(4321);
-    await agent.patch('/api/parts/TST-COST-1').send({ ...withoutCost, costCents: null }).expect(200);
-    expect((await agent.get('/api/parts/TST-COST-1').expect(200)).body.data.costCents).toBeNull();
+    await agent.patch('/api/parts/TST-KEPT-1').send({ ...withoutCost, name: 'Renamed, cost untouched' }).expect(200);
+    expect((await agent.get('/api/parts/TST-KEPT-1').expect(200)).body.data.costCents).toBe(4321);
+    await agent.patch('/api/parts/TST-KEPT-1').send({ ...withoutCost, costCents: null }).expect(200);
+    expect((await agent.get('/api/parts/TST-KEPT-1').expect(200)).body.data.costCents).toBeNull();
   });
 
   it('refuses a price that is not a number ("sixty") with a field error and keeps the stored price', async () => {
@@ -194,7 +259,6 @@ describe('GET /api/parts/:sku', () => {
   });
 
   it('links superseded parts both ways', async () => {
-    const old = demoParts.find((p) => p.lifecycle === 'superseded')!;
     const agent = await t.signIn('sales');
     const res = await agent.get(`/api/parts/${old.sku}`).expect(200);
     expect(res.body.data.supersededBy.sku).toBe(old.supersededBy);
@@ -210,11 +274,19 @@ describe('GET /api/parts/:sku', () => {
 });
 
 describe('writing parts', () => {
+  // One part that has a GTIN, for the refusals that name an existing part.
+  let taken: { sku: string; gtin: string | null };
+  beforeAll(async () => {
+    taken = await build((tx) => makePart(tx, { name: 'Kettlewick stud bracket', gtin: makeGtin() }));
+  });
+
   it.each(['installer', 'warehouse', 'sales'] as const)('is refused to %s with 403', async (role) => {
     const agent = await t.signIn(role);
     await agent.post('/api/parts').send(newPart()).expect(403);
-    await agent.patch(`/api/parts/${demoParts[0]!.sku}`).send(newPart({ sku: demoParts[0]!.sku })).expect(403);
-    await agent.post(`/api/parts/${demoParts[0]!.sku}/archive`).expect(403);
+    await agent.patch(`/api/parts/${taken.sku}`).send(newPart({ sku: taken.sku })).expect(403);
+    await agent.post(`/api/parts/${taken.sku}/archive`).expect(403);
+    const kept = (await agent.get(`/api/parts/${taken.sku}`).expect(200)).body.data;
+    expect([kept.name, kept.archived]).toEqual(['Kettlewick stud bracket', false]);
   });
 
   it('creates a part that search finds at once', async () => {
@@ -254,11 +326,10 @@ describe('writing parts', () => {
 
   it('refuses a duplicate SKU or GTIN with 409 naming the field', async () => {
     const agent = await t.signIn('purchasing');
-    const taken = demoParts.find((p) => p.gtin)!;
     const dupSku = await agent.post('/api/parts').send(newPart({ sku: taken.sku }));
     expect(dupSku.status).toBe(409);
     expect(dupSku.body.error.details.fields[0].path).toBe('sku');
-    const dupGtin = await agent.post('/api/parts').send(newPart({ gtin: taken.gtin }));
+    const dupGtin = await agent.post('/api/parts').send(newPart({ gtin: taken.gtin! }));
     expect(dupGtin.status).toBe(409);
     expect(dupGtin.body.error.details.fields[0].path).toBe('gtin');
   });
@@ -279,7 +350,10 @@ describe('writing parts', () => {
 });
 
 describe('media uploads', () => {
-  const sku = demoParts.find((p) => p.category === 'feet')!.sku;
+  let sku: string;
+  beforeAll(async () => {
+    ({ sku } = await build((tx) => makePart(tx, { name: 'Kettlewick adjustable feet, pack of 4', category: 'feet' })));
+  });
   const png = () => sharp({ create: { width: 640, height: 400, channels: 3, background: '#a8482a' } }).png().toBuffer();
   const stored = () => readdirSync(t.filesDir, { recursive: true }).filter((f) => String(f).includes('.')).length;
 
@@ -337,20 +411,26 @@ describe('media uploads', () => {
 });
 
 describe('media routes', () => {
+  let bracket: string;
+  let endCap: string;
+  beforeAll(async () => {
+    [bracket, endCap] = await build(async (tx) => [(await makePart(tx)).sku, (await makePart(tx, { name: 'Kettlewick end cap', category: 'end-cap' })).sku]);
+  });
+
   it('answer 401 without a session and 404 for unknown files', async () => {
     const anon = request(t.app);
     await anon.get('/api/media/00000000-0000-0000-0000-000000000000').expect(401);
-    await anon.delete(`/api/parts/${demoParts[0]!.sku}/media/00000000-0000-0000-0000-000000000000`).expect(401);
-    await anon.post(`/api/parts/${demoParts[0]!.sku}/media`).attach('file', Buffer.from('x'), 'x.png').expect(401);
+    await anon.delete(`/api/parts/${bracket}/media/00000000-0000-0000-0000-000000000000`).expect(401);
+    await anon.post(`/api/parts/${bracket}/media`).attach('file', Buffer.from('x'), 'x.png').expect(401);
     const agent = await t.signIn('purchasing');
     await agent.get('/api/media/00000000-0000-0000-0000-000000000000').expect(404);
     await agent.get('/api/media/not-a-uuid').expect(400);
-    await agent.delete(`/api/parts/${demoParts[0]!.sku}/media/00000000-0000-0000-0000-000000000000`).expect(404);
+    await agent.delete(`/api/parts/${bracket}/media/00000000-0000-0000-0000-000000000000`).expect(404);
   });
 
   it('let purchasing remove a photo, and refuse that to sales', async () => {
     const agent = await t.signIn('purchasing');
-    const sku = demoParts.find((p) => p.category === 'end-cap')!.sku;
+    const sku = endCap;
     const png = await sharp({ create: { width: 40, height: 40, channels: 3, background: '#0e6b63' } }).png().toBuffer();
     const up = await agent.post(`/api/parts/${sku.toLowerCase()}/media`).attach('file', png, 'cap.png').expect(201);
     const sales = await t.signIn('sales');
@@ -362,15 +442,27 @@ describe('media routes', () => {
   it('refuse a datasheet over 20 MB', async () => {
     const agent = await t.signIn('purchasing');
     const big = Buffer.concat([Buffer.from('%PDF-1.4\n'), Buffer.alloc(21 * 1024 * 1024, 32)]);
-    const res = await agent.post(`/api/parts/${demoParts[0]!.sku}/media`).attach('file', big, 'huge.pdf');
+    const res = await agent.post(`/api/parts/${bracket}/media`).attach('file', big, 'huge.pdf');
     expect(res.status).toBe(413);
   });
 });
 
 describe('identity rules', () => {
+  // A part with a GTIN and a supplier's SKU, and feet that a range's BOM rules name.
+  let taken: { sku: string; gtin: string; supplierSku: string };
+  let feetSku: string;
+  beforeAll(async () => {
+    taken = { sku: 'QRB-HRT-WB', gtin: makeGtin(), supplierSku: 'KT-520155' };
+    feetSku = await build(async (tx) => {
+      await makePart(tx, { sku: taken.sku, name: 'Hearth wall bracket', maker: 'QRB', gtin: taken.gtin, supplierSkus: [{ supplier: 'KESTREL', sku: taken.supplierSku }] });
+      const feet = await makePart(tx, { name: 'Kettlewick stack feet, pack of 4', category: 'feet', packSize: 4, unit: 'pack' });
+      await makeRange(tx, { name: 'Kettlewick Stack', rules: [{ sku: feet.sku, basis: 'per-stack', qty: 4 }] });
+      return feet.sku;
+    });
+  });
+
   it('refuses the same item as GTIN-14 on a second part (unique as GTIN-14)', async () => {
     const agent = await t.signIn('purchasing');
-    const taken = demoParts.find((p) => p.gtin)!;
     const res = await agent.post('/api/parts').send(newPart({ gtin: `0${taken.gtin}` }));
     expect(res.status).toBe(409);
     expect(res.body.error.details.fields[0].path).toBe('gtin');
@@ -378,26 +470,27 @@ describe('identity rules', () => {
 
   it('refuses to rename a SKU that range rules use', async () => {
     const agent = await t.signIn('purchasing');
-    const feet = (await agent.get('/api/parts/HLM-TOR-FEET').expect(200)).body.data;
-    const input = { sku: 'HLM-TOR-FEET-2', name: feet.name, makerCode: 'HLM', packSize: feet.packSize, massKg: feet.massKg, attributes: feet.attributes };
-    const res = await agent.patch('/api/parts/HLM-TOR-FEET').send(input);
+    const feet = (await agent.get(`/api/parts/${feetSku}`).expect(200)).body.data;
+    const input = { sku: `${feetSku}-2`, name: feet.name, makerCode: 'HLM', packSize: feet.packSize, massKg: feet.massKg, attributes: feet.attributes };
+    const res = await agent.patch(`/api/parts/${feetSku}`).send(input);
     expect(res.status).toBe(409);
     expect(res.body.error.details.fields[0].path).toBe('sku');
+    await agent.get(`/api/parts/${feetSku}`).expect(200);
   });
 
   it('does not reveal supplier SKUs to installers: no scan jump, no search hit, no CSV row', async () => {
-    const code = withKestrelSku.supplierSkus![0]!.sku;
+    const code = taken.supplierSku;
     const installer = await t.signIn('installer');
     const res = await installer.get('/api/parts').query({ q: code }).expect(200);
     expect(res.body.exactSku).toBeNull();
-    expect(res.body.data.map((p: { sku: string }) => p.sku)).not.toContain(withKestrelSku.sku);
+    expect(res.body.data.map((p: { sku: string }) => p.sku)).not.toContain(taken.sku);
     const csv = await installer.get('/api/parts/export.csv').query({ q: code }).expect(200);
-    expect(csv.text).not.toContain(withKestrelSku.sku);
+    expect(csv.text).not.toContain(taken.sku);
 
     // Staff who may see supplier data find the part by the same code, at the top.
     const sales = await t.signIn('sales');
     const found = await sales.get('/api/parts').query({ q: code }).expect(200);
-    expect(found.body.data[0].sku).toBe(withKestrelSku.sku);
+    expect(found.body.data[0].sku).toBe(taken.sku);
   });
 
   it('sends no cost in list results or CSV exports to installers or the warehouse', async () => {
@@ -497,12 +590,37 @@ describe('CSV export', () => {
 
 describe('makers and ranges', () => {
   it('lists makers with counts and ranges with their units', async () => {
-    const agent = await t.signIn('installer');
-    const makers = await agent.get('/api/makers').expect(200);
-    expect(makers.body.data.map((m: { code: string }) => m.code).sort()).toEqual(['HLM', 'QRB', 'TVP']);
-    const ranges = await agent.get('/api/ranges').expect(200);
-    expect(ranges.body.data.length).toBeGreaterThanOrEqual(3);
-    expect(ranges.body.data[0]).toHaveProperty('controllerSku');
-    expect(['series', 'parallel']).toContain(ranges.body.data[0].connection);
+    // Its own catalogue, so the lists hold exactly what is built here: three makers whose names
+    // sort in another order than their codes, a range each (controller and module), and feet.
+    const own = await createTestApp();
+    try {
+      const built = await build(async (tx) => {
+        await makeMaker(tx, { code: 'HLM', name: 'Wattlebank Cells' });
+        await makeMaker(tx, { code: 'QRB', name: 'Brindle Power' });
+        await makeMaker(tx, { code: 'TVP', name: 'Mallee Energy' });
+        const range = async (maker: string, name: string, connection: 'series' | 'parallel') => {
+          const [controller, module] = [await makePart(tx, { maker, category: 'controller' }), await makePart(tx, { maker, category: 'module' })];
+          await makeRange(tx, { maker, name, connection, controllerSku: controller.sku, moduleSku: module.sku });
+          return [name, connection, controller.sku, module.sku];
+        };
+        const ranges = [await range('HLM', 'Wattlebank Tall', 'series'), await range('QRB', 'Brindle Hearth', 'parallel'), await range('TVP', 'Mallee Stackline', 'parallel')];
+        await makePart(tx, { maker: 'HLM', category: 'feet' });
+        return ranges;
+      }, own);
+      const agent = await own.signIn('installer');
+      const makers = await agent.get('/api/makers').expect(200);
+      expect(makers.body.data.map((m: { code: string }) => m.code).sort()).toEqual(['HLM', 'QRB', 'TVP']);
+      // by name, each with its parts: a range's controller and module, and the feet
+      expect(makers.body.data.map((m: { code: string; parts: number }) => [m.code, m.parts])).toEqual([['QRB', 2], ['TVP', 2], ['HLM', 3]]);
+      const ranges = await agent.get('/api/ranges').expect(200);
+      expect(ranges.body.data.length).toBe(built.length);
+      expect(ranges.body.data[0]).toHaveProperty('controllerSku');
+      expect(['series', 'parallel']).toContain(ranges.body.data[0].connection);
+      // by name, each with its own controller and module
+      type Range = { name: string; connection: string; controllerSku: string; moduleSku: string };
+      expect(ranges.body.data.map((r: Range) => [r.name, r.connection, r.controllerSku, r.moduleSku])).toEqual([built[1], built[2], built[0]]);
+    } finally {
+      await own.close();
+    }
   });
 });

@@ -1,11 +1,9 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { eq, sql } from 'drizzle-orm';
+import { sql } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../support/app.ts';
 import { ledgerDifferences, stockSnapshot } from '../support/ledger.ts';
-import { seedCatalogue } from '../../seed/catalogue.ts';
-import { makeCompany, makeStockPart, makeWarehouse, putStock } from '../../seed/factories.ts';
-import { ranges } from '../../server/db/schema/index.ts';
+import { makeCompany, makePart, makeRange, makeStockPart, makeWarehouse, putStock } from '../../seed/factories.ts';
 import { startScheduler, QUOTE_EXPIRY_QUEUE } from '../../server/jobs/quote-expiry.ts';
 
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;
@@ -18,13 +16,19 @@ let warehouse: Agent;
 let main: { id: string };
 let north: { id: string };
 let rangeId: string;
+/** What a plan of that range holds: controller, modules, feet and end cap. */
+let rangeSkus: string[];
 let seq = 0;
 const ref = (p = 'JOB') => `${p}-${++seq}`;
 
 beforeAll(async () => {
   t = await createTestApp({ now: () => clock });
-  await t.db.transaction((tx) => seedCatalogue(tx));
-  [{ id: rangeId }] = (await t.db.select({ id: ranges.id }).from(ranges).where(eq(ranges.code, 'QRB-HEARTH'))) as { id: string }[];
+  // A range whose plans carry more than the controller and modules: feet and an end cap per stack.
+  ({ rangeId, rangeSkus } = await t.db.transaction(async (tx) => {
+    const [controller, module, feet, cap] = [await makePart(tx, { category: 'controller' }), await makePart(tx, { category: 'module' }), await makePart(tx, { category: 'feet', packSize: 4, unit: 'pack' }), await makePart(tx, { category: 'end-cap' })];
+    const range = await makeRange(tx, { controllerSku: controller.sku, moduleSku: module.sku, rules: [{ sku: feet.sku, basis: 'per-stack', qty: 4 }, { sku: cap.sku, basis: 'per-stack', qty: 1 }] });
+    return { rangeId: range.id, rangeSkus: [controller.sku, module.sku, feet.sku, cap.sku] };
+  }));
   main = await makeWarehouse(t.db, { code: 'JMAIN', rank: 0 });
   north = await makeWarehouse(t.db, { code: 'JNTH', rank: 5 });
   const [c1, c2] = await Promise.all([makeCompany(t.db), makeCompany(t.db)]);
@@ -84,6 +88,7 @@ describe('creating jobs', () => {
     const plan = (await installer.get(`/api/stack-plans/saved/${saved.body.data.id}`)).body.data.plan;
     const fromPlan = ordered.lines.filter((l: { plan: { id: string } | null }) => l.plan?.id === saved.body.data.id);
     expect(fromPlan.map((l: { sku: string; qty: number }) => [l.sku, l.qty])).toEqual(plan.bom.map((l: { sku: string; qtyUnits: number }) => [l.sku, l.qtyUnits]));
+    expect(fromPlan.map((l: { sku: string }) => l.sku).sort()).toEqual([...rangeSkus].sort());
     expect(ordered.plans).toMatchObject([{ id: saved.body.data.id, name: 'Garage, 9 Banksia Rd' }]);
     expect(ordered.history.map((h: { status: string; by: string }) => [h.status, h.by])).toEqual([
       ['draft', 'Test installer'],
