@@ -9,6 +9,7 @@ import type { CreateJobInput, JobListQuery, JobStatus } from '@shared/contracts/
 import type { PlannerService } from './planner.ts';
 import { heldByLine, inStockTransaction, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
 import { assertReservable, reservationPlan, reserveInTx } from './reservations.ts';
+import type { MailService } from './mail.ts';
 
 export interface JobDeps {
   db: Db;
@@ -17,6 +18,10 @@ export interface JobDeps {
   now?: () => Date;
   /** How long a quote (a draft's reservation) holds its units. */
   quoteHoldDays?: number;
+  /** Messages about the job, written in the transaction of the change they report. */
+  mail?: Pick<MailService, 'jobOrdered' | 'jobBackorders'>;
+  /** Runs after a job is cancelled (a card payment is refunded). */
+  onCancelled?: (jobId: string) => Promise<void>;
 }
 
 const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -25,7 +30,7 @@ const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code
 
 type JobRow = typeof jobs.$inferSelect;
 
-export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7 }: JobDeps) {
+export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7, mail, onCancelled }: JobDeps) {
   const jobByIdQuery = db.select().from(jobs).where(eq(jobs.id, sql.placeholder('id'))).prepare('job_by_id');
   /** The job if the actor may see it; another company's job is "not found". */
   async function visibleJob(actor: Actor, id: string, tx: Db | Tx = db): Promise<JobRow> {
@@ -129,6 +134,39 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     });
   }
 
+  /** Orders a draft inside the caller's transaction (an installer's order, or a confirmed card payment). True when a quote held units. */
+  async function orderInTx(tx: Tx, id: string, userId: string | null, note: string | null, lines: { sku: string; qty: number; planId: string; reason: string }[] = []) {
+    const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+    if (locked!.status !== 'draft') throw new ConflictError(`This job is already ${locked!.status}; only a draft can be ordered.`);
+    await copyPlanLines(tx, locked!, lines);
+    const { rows } = await heldByLine(tx, id);
+    if (rows.length === 0) throw new ConflictError('This job has no lines to order.');
+    await tx.update(jobs).set({ orderedAt: now() }).where(eq(jobs.id, id));
+    await record(tx, id, 'ordered', userId, note);
+    await mail?.jobOrdered(tx, id);
+    return rows.some((r) => r.held > 0);
+  }
+
+  /** Makes a quote's holds firm after ordering; the backorders message follows if anything is short. */
+  async function firmUp(userId: string | null, id: string) {
+    const plan = await reservationPlan(db, id);
+    if (plan.lines.length === 0) return;
+    await inStockTransaction(db, (tx) => reserveInTx(tx, id, plan, { userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly: true }));
+    await announceBackorders(id, 0);
+  }
+
+  const backorderedUnits = async (id: string) => {
+    const { rows } = await db.execute<{ n: number }>(sql`select coalesce(sum(b.qty), 0)::int as n from backorders b join job_lines jl on jl.id = b.job_line_id where jl.job_id = ${id}`);
+    return rows[0]?.n ?? 0;
+  };
+
+  /** Tells the customer which lines wait on backorder, when reserving left more short than before. */
+  async function announceBackorders(id: string, before: number) {
+    if (!mail) return;
+    if ((await backorderedUnits(id)) <= before) return;
+    await db.transaction((tx) => mail.jobBackorders(tx, id));
+  }
+
   /** One transaction per job, retried on deadlock or serialization failure; the last check is the database's. */
   async function reserveJob(actor: Actor, jobId: string, firmUpOnly = false) {
     const plan = await reservationPlan(db, jobId);
@@ -221,18 +259,13 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const job = await visibleJob(actor, id);
       if (job.status !== 'draft') throw new ConflictError(`This job is already ${job.status}; only a draft can be ordered.`);
       const lines = job.linesCopiedAt ? [] : await planLines(actor, job.id);
-      const hadHolds = await db.transaction(async (tx) => {
-        const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
-        if (locked!.status !== 'draft') throw new ConflictError(`This job is already ${locked!.status}; only a draft can be ordered.`);
-        await copyPlanLines(tx, locked!, lines);
-        const { rows } = await heldByLine(tx, id);
-        if (rows.length === 0) throw new ConflictError('This job has no lines to order.');
-        await tx.update(jobs).set({ orderedAt: now() }).where(eq(jobs.id, id));
-        await record(tx, id, 'ordered', actor.userId);
-        return rows.some((r) => r.held > 0);
-      });
+      if (isCompanyBound(actor)) {
+        const [c] = await db.select({ accountType: companies.accountType }).from(companies).where(eq(companies.id, job.companyId));
+        if (c?.accountType === 'cash') throw new ConflictError('Your account pays by card: pay for this job to place the order.');
+      }
+      const hadHolds = await db.transaction((tx) => orderInTx(tx, id, actor.userId, null, lines));
       // Units a quote held become the order's: made firm (and topped up) in the reservation's own transaction.
-      if (hadHolds) await reserveJob(actor, id, true);
+      if (hadHolds) await firmUp(actor.userId, id);
       return detail(actor, id);
     },
 
@@ -241,7 +274,9 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const job = await visibleJob(actor, id);
       assertReservable(job.status);
       if (job.status === 'draft') await materialise(actor, job);
+      const before = await backorderedUnits(id);
       await reserveJob(actor, id);
+      if (job.status !== 'draft') await announceBackorders(id, before);
       return detail(actor, id);
     },
 
@@ -269,8 +304,20 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
         if (!BEFORE_PICKING.includes(locked!.status)) throw new ConflictError(`This job is ${locked!.status} and can no longer be cancelled.`);
         await record(tx, id, 'cancelled', actor.userId, units ? `Released ${units} reserved units` : null);
       });
+      await onCancelled?.(id);
       return detail(actor, id);
     },
+
+    /** A draft with its plans' lines copied in, so it can be priced (before a card payment). */
+    async priced(actor: Actor, id: string) {
+      authorize(actor, 'jobs.view');
+      const job = await visibleJob(actor, id);
+      if (job.status === 'draft') await materialise(actor, job);
+      return detail(actor, id);
+    },
+
+    orderInTx,
+    firmUp,
 
     /** Releases quote holds that have lapsed by `at` (the scheduled job calls this). Returns the jobs touched. */
     async expireQuoteHolds(at: Date = now()) {
