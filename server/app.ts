@@ -21,6 +21,7 @@ import { stockRoutes } from './routes/stock.ts';
 import { jobRoutes } from './routes/jobs.ts';
 import { mailRoutes } from './routes/mail.ts';
 import { paymentRoutes, paymentWebhookRoute } from './routes/payments.ts';
+import { portalRoutes } from './routes/portal.ts';
 import { createServices, type AppDeps, type AppOptions } from './deps.ts';
 
 export { createServices, type AppDeps, type AppOptions };
@@ -85,6 +86,7 @@ export function createApp(options: AppOptions, deps: AppDeps = createServices(op
   jobRoutes(api, deps);
   mailRoutes(api, deps);
   paymentRoutes(api, deps);
+  portalRoutes(api, deps);
   // Routes are fixed once the app is built, so the document is generated once.
   let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {

@@ -17,6 +17,7 @@ import type Stripe from 'stripe';
 import { createMailService, type MailService } from './services/mail.ts';
 import { createPaymentService, type PaymentService } from './services/payments.ts';
 import { createInvoiceService, type InvoiceService } from './services/invoices.ts';
+import { createPortalService, type PortalService } from './services/portal.ts';
 
 /** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
 export interface AppOptions {
@@ -54,6 +55,7 @@ export interface AppDeps extends AppOptions {
   mail: MailService;
   payments: PaymentService;
   invoices: InvoiceService;
+  portal: PortalService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks, tests and benchmarks. */
@@ -82,5 +84,6 @@ export function createServices(options: AppOptions): AppDeps {
     mail,
     payments,
     invoices: createInvoiceService({ db: options.db, jobs }),
+    portal: createPortalService({ db: options.db, planner }),
   };
 }

@@ -6,10 +6,7 @@ import { authorize, type Actor } from '../policies/actor.ts';
 import { ConflictError } from '../errors.ts';
 import { invoiceGst, lineTotalCents } from '@shared/domain/money.ts';
 import type { InvoiceDoc } from '../documents/invoice-pdf.ts';
-import type { JobService } from './jobs.ts';
-
-/** A job is invoiced once it is ordered; a draft or a cancelled job has no invoice. */
-const INVOICED = ['ordered', 'reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected', 'closed'];
+import { INVOICED, type JobService } from './jobs.ts';
 
 const place = (c: { suburb: string | null; postcode: string | null }) => [c.suburb, c.postcode].filter(Boolean).join(' ') || null;
 const dateText = (d: Date) => d.toLocaleDateString('en-AU', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'Australia/Melbourne' });

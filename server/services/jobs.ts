@@ -10,6 +10,7 @@ import type { PlannerService } from './planner.ts';
 import { heldByLine, inStockTransaction, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
 import { assertReservable, reservationPlan, reserveInTx } from './reservations.ts';
 import type { MailService } from './mail.ts';
+import { unitPriceFor } from './pricing.ts';
 
 export interface JobDeps {
   db: Db;
@@ -26,6 +27,9 @@ export interface JobDeps {
 
 const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const BEFORE_PICKING: JobStatus[] = ['draft', 'ordered', 'reserved', 'part-reserved'];
+/** A card payment may be taken until the kit leaves; a job is invoiced once ordered. */
+export const PAYABLE: JobStatus[] = ['draft', 'ordered', 'reserved', 'part-reserved', 'picking', 'ready'];
+export const INVOICED: JobStatus[] = ['ordered', 'reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected', 'closed'];
 const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
 
 type JobRow = typeof jobs.$inferSelect;
@@ -65,7 +69,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     const [last] = await tx.select({ n: sql<number>`coalesce(max(${jobLines.lineNo}), 0)::int` }).from(jobLines).where(eq(jobLines.jobId, job.id));
     let lineNo = last?.n ?? 0;
     if (lines.length)
-      await tx.insert(jobLines).values(lines.map((l) => ({ jobId: job.id, lineNo: ++lineNo, partId: found.get(l.sku)!.id, qty: l.qty, planId: l.planId, reason: l.reason, unitPriceCents: found.get(l.sku)!.listPriceCents })));
+      await tx.insert(jobLines).values(lines.map((l) => ({ jobId: job.id, lineNo: ++lineNo, partId: found.get(l.sku)!.id, qty: l.qty, planId: l.planId, reason: l.reason, unitPriceCents: unitPriceFor(job.companyId, found.get(l.sku)!) })));
     await tx.update(jobs).set({ linesCopiedAt: now() }).where(eq(jobs.id, job.id));
   }
 
@@ -76,6 +80,9 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     .select({
       job: jobs,
       company: { id: companies.id, name: companies.name },
+      accountType: companies.accountType,
+      payment: sql<{ status: 'paid' | 'refunded'; amountCents: number; paidAt: string } | null>`(select json_build_object('status', p.status, 'amountCents', p.amount_cents, 'paidAt', p.paid_at)
+        from payments p where p.job_id = "jobs"."id" and p.status in ('paid', 'refunded') order by p.paid_at desc limit 1)`,
       preferredCode: warehouses.code,
       preferredName: warehouses.name,
       plans: sql<{ id: string; name: string; rangeName: string; summary: unknown }[]>`(select coalesce(json_agg(json_build_object('id', sp.id, 'name', sp.name, 'rangeName', rg.name, 'summary', sp.summary) order by sp.name), '[]')
@@ -114,14 +121,20 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     const history = head.history.map((h) => ({ ...h, status: h.status as JobStatus, at: new Date(h.at) }));
     const holding = held.length > 0;
     const fullyHeld = lines.length > 0 && lines.every((l) => l.reserved >= l.qty);
+    const hasWork = lines.length > 0 || plans.length > 0;
+    const payment = head.payment ? { ...head.payment, paidAt: new Date(head.payment.paidAt) } : null;
     const abilities = {
-      order: can(actor.role, 'jobs.create') && job.status === 'draft' && (lines.length > 0 || plans.length > 0),
+      // A card-paying customer orders by paying; the desk may still order for them (paid another way).
+      order: can(actor.role, 'jobs.create') && job.status === 'draft' && hasWork && !(head.accountType === 'cash' && isCompanyBound(actor)),
+      pay: can(actor.role, 'payments.create') && head.accountType === 'cash' && !payment && hasWork && PAYABLE.includes(job.status),
+      invoice: can(actor.role, 'invoices.view') && INVOICED.includes(job.status),
+      reorder: can(actor.role, 'jobs.create') && hasWork,
       reserve: can(actor.role, 'jobs.reserve') && ['draft', 'ordered', 'part-reserved'].includes(job.status) && !fullyHeld && (lines.length > 0 || plans.length > 0),
       release: can(actor.role, 'jobs.reserve') && BEFORE_PICKING.includes(job.status) && (holding || queue.length > 0),
       cancel: can(actor.role, 'jobs.cancel') && BEFORE_PICKING.includes(job.status),
     };
     const holdExpiresAt = held.reduce<Date | null>((min, r) => (r.expiresAt && (!min || r.expiresAt < min) ? r.expiresAt : min), null);
-    return { job, company, preferred, plans, lines, held, queue, history, abilities, holdExpiresAt };
+    return { job, company, preferred, plans, lines, held, queue, history, abilities, holdExpiresAt, paymentTerms: head.accountType, payment };
   }
 
   /** Shared by reserve (as a quote on a draft) and order: the plans' lines are copied in first. */
@@ -174,10 +187,10 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     return inStockTransaction(db, (tx) => reserveInTx(tx, jobId, plan, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly }));
   }
 
-  return {
+  const service = {
     detail,
 
-    async create(actor: Actor, input: CreateJobInput) {
+    async create(actor: Actor, input: CreateJobInput & { reason?: string }) {
       authorize(actor, 'jobs.create');
       const companyId = companyForNew(actor, input.companyId);
       if (!companyId) throw new ValidationError('Choose the customer account this job is for.', { fields: [{ path: 'companyId', message: 'Choose a customer account.' }] });
@@ -203,7 +216,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
             .returning({ id: jobs.id });
           const jobId = row!.id;
           if (planIds.length) await tx.insert(jobPlans).values(planIds.map((planId) => ({ jobId, planId })));
-          if (extra.length) await tx.insert(jobLines).values(extra.map((l, i) => ({ jobId, lineNo: i + 1, partId: found.get(l.sku)!.id, qty: l.qty, reason: 'Added by SKU', unitPriceCents: found.get(l.sku)!.listPriceCents })));
+          if (extra.length) await tx.insert(jobLines).values(extra.map((l, i) => ({ jobId, lineNo: i + 1, partId: found.get(l.sku)!.id, qty: l.qty, reason: input.reason ?? 'Added by SKU', unitPriceCents: unitPriceFor(companyId, found.get(l.sku)!) })));
           if (planIds.length === 0) await tx.update(jobs).set({ linesCopiedAt: at }).where(eq(jobs.id, jobId));
           await tx.insert(jobStatusHistory).values({ jobId, status: 'draft', userId: actor.userId, at });
           return jobId;
@@ -308,6 +321,29 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       return detail(actor, id);
     },
 
+    /**
+     * A new draft with the same lines (at today's prices) or, for a draft whose plans were never
+     * copied in, the same plans. Its reference is the old one marked "again".
+     */
+    async reorder(actor: Actor, id: string) {
+      authorize(actor, 'jobs.create');
+      const d = await detail(actor, id);
+      const lines = d.lines.map((l) => ({ sku: l.sku, qty: l.qty }));
+      const planIds = lines.length ? [] : d.plans.map((p) => p.id);
+      if (!lines.length && !planIds.length) throw new ConflictError('This job has nothing to order again.');
+      const base = d.job.reference.replace(/ \(again(?: \d+)?\)$/, '');
+      for (let n = 1; n <= 50; n++) {
+        const mark = n === 1 ? ' (again)' : ` (again ${n})`;
+        const reference = base.slice(0, 40 - mark.length) + mark;
+        try {
+          return await service.create(actor, { companyId: d.company.id, reference, siteSuburb: d.job.siteSuburb ?? undefined, sitePostcode: d.job.sitePostcode ?? undefined, contact: d.job.contact ?? undefined, planIds, lines, reason: `Ordered again from ${d.job.reference}` });
+        } catch (e) {
+          if (!(e instanceof ConflictError)) throw e;
+        }
+      }
+      throw new ConflictError('Give the new job a reference of its own: this one has been ordered again many times.');
+    },
+
     /** A draft with its plans' lines copied in, so it can be priced (before a card payment). */
     async priced(actor: Actor, id: string) {
       authorize(actor, 'jobs.view');
@@ -338,6 +374,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       return { jobs: due.length, units };
     },
   };
+  return service;
 }
 
 export type JobService = ReturnType<typeof createJobService>;

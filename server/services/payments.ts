@@ -8,7 +8,7 @@ import { companies, jobs, paymentEvents, payments } from '../db/schema/index.ts'
 import { authorize, type Actor } from '../policies/actor.ts';
 import { AppError, ConflictError, NotFoundError } from '../errors.ts';
 import { invoiceGst } from '@shared/domain/money.ts';
-import type { JobService } from './jobs.ts';
+import { PAYABLE, type JobService } from './jobs.ts';
 import type { MailService } from './mail.ts';
 
 export interface PaymentDeps {
@@ -28,7 +28,6 @@ export class BadSignatureError extends AppError {
   }
 }
 
-const PAYABLE = ['draft', 'ordered', 'reserved', 'part-reserved', 'picking', 'ready'];
 
 export function createPaymentService({ db, provider, webhookSecret, appUrl, jobs: jobService, mail, logger }: PaymentDeps) {
   return {

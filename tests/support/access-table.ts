@@ -121,6 +121,9 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'GET /api/admin/outbox/{id}': { allow: admins, params: { id: 'mail' } },
   'POST /api/jobs/{id}/payments': { allow: jobMakers, companyOwned: true, params: { id: 'job' } },
   'POST /api/payments/webhook': { allow: 'public' },
+  'GET /api/portal/summary': { allow: everyone },
+  'POST /api/stack-plans/alternatives': { allow: planners, body: plan },
+  'POST /api/jobs/{id}/reorder': { allow: jobMakers, companyOwned: true, params: { id: 'orderedJob' } },
   'GET /api/jobs/{id}/invoice.pdf': { allow: ['admin', 'purchasing', 'sales', 'installer'], companyOwned: true, params: { id: 'orderedJob' } },
 };
 
