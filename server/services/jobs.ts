@@ -27,8 +27,8 @@ export interface JobDeps {
 
 const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const BEFORE_PICKING: JobStatus[] = ['draft', 'ordered', 'reserved', 'part-reserved'];
-/** A card payment may be taken until the kit leaves; a job is invoiced once ordered. */
-export const PAYABLE: JobStatus[] = ['draft', 'ordered', 'reserved', 'part-reserved', 'picking', 'ready'];
+/** Card accounts pay to place the order (a draft); what the desk orders for them it settles itself. A job is invoiced once ordered. */
+export const PAYABLE: JobStatus[] = ['draft'];
 export const INVOICED: JobStatus[] = ['ordered', 'reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected', 'closed'];
 const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
 

@@ -37,7 +37,7 @@ export function createPaymentService({ db, provider, webhookSecret, appUrl, jobs
       const d = await jobService.priced(actor, jobId); // visibility: another company's job is 404
       const [company] = await db.select({ accountType: companies.accountType }).from(companies).where(eq(companies.id, d.company.id));
       if (company?.accountType !== 'cash') throw new ConflictError(`${d.company.name} is on trade account terms: this job is invoiced, not paid by card.`);
-      if (!PAYABLE.includes(d.job.status)) throw new ConflictError(`This job is ${d.job.status}; there is nothing to pay.`);
+      if (!PAYABLE.includes(d.job.status)) throw new ConflictError(`This job is already ${d.job.status}: card payments are taken to place an order.`);
       const priced = d.lines.filter((l) => l.unitPriceCents !== null);
       const { incCents } = invoiceGst(priced.map((l) => ({ exCents: l.unitPriceCents, qty: l.qty })), 'per-invoice');
       if (d.lines.length === 0 || incCents <= 0) throw new ConflictError('This job has no priced lines to pay for.');

@@ -82,6 +82,8 @@ export function createPortalService({ db, planner }: { db: Db; planner: Pick<Pla
       const short = base.bom.filter((l) => l.short > 0).map((l) => ({ sku: l.sku, name: l.name, short: l.short }));
       if (short.length === 0) return { short, alternatives: [] };
       const common = { inverterSku: request.inverterSku ?? null, stacks: request.stacks, site: request.site, includeInverter: request.includeInverter };
+      const all = await db.select({ id: ranges.id, code: ranges.code }).from(ranges).orderBy(asc(ranges.code));
+      const codeOf = new Map(all.map((r) => [r.id, r.code]));
       const describe = (kind: PlanAlternative['kind'], req: StackPlanRequest, p: StackPlanResult): PlanAlternative => {
         const changes: string[] = [];
         if (p.rangeId !== base.rangeId) changes.push(`${p.rangeName} instead of ${base.rangeName}`);
@@ -89,7 +91,7 @@ export function createPortalService({ db, planner }: { db: Db; planner: Pick<Pla
         const dk = Math.round((p.usableKwh - base.usableKwh) * 10) / 10;
         changes.push(dk === 0 ? `Same usable energy (${kwh(p.usableKwh)})` : `${kwh(p.usableKwh)} usable (${dk > 0 ? `${kwh(dk)} more` : `${kwh(-dk)} less`})`);
         if (p.heightMm !== base.heightMm) changes.push(`Stack ${Math.abs(p.heightMm - base.heightMm)} mm ${p.heightMm > base.heightMm ? 'taller' : 'shorter'}`);
-        return { kind, request: req, rangeName: p.rangeName, stacks: p.stacks, modulesPerStack: p.modulesPerStack, usableKwh: p.usableKwh, totalCents: p.totals.totalCents, differenceCents: p.totals.totalCents - base.totals.totalCents, changes };
+        return { kind, request: req, rangeName: p.rangeName, rangeCode: codeOf.get(p.rangeId) ?? '', stacks: p.stacks, modulesPerStack: p.modulesPerStack, usableKwh: p.usableKwh, totalCents: p.totals.totalCents, differenceCents: p.totals.totalCents - base.totals.totalCents, changes };
       };
 
       // The same range, one module more or fewer first, then two.
@@ -104,9 +106,8 @@ export function createPortalService({ db, planner }: { db: Db; planner: Pick<Pla
       }
 
       // Other ranges sized for the same usable energy and inverter.
-      const others = await db.select({ id: ranges.id }).from(ranges).orderBy(asc(ranges.code));
       const otherRanges: PlanAlternative[] = [];
-      for (const r of others) {
+      for (const r of all) {
         if (r.id === base.rangeId) continue;
         const req = { rangeId: r.id, targetUsableKwh: base.usableKwh, ...common, stacks: undefined };
         const p = await tryPlan(actor, req);

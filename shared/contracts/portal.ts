@@ -29,6 +29,7 @@ export const PlanAlternativeSchema = z.object({
   kind: z.enum(['modules', 'range']),
   request: StackPlanRequestSchema,
   rangeName: text(),
+  rangeCode: text(),
   stacks: z.number(),
   modulesPerStack: z.number(),
   usableKwh: z.number(),
