@@ -45,7 +45,7 @@ export function JobPaperwork({ job, justPaid }: { job: Job; justPaid: boolean })
       {job.abilities.pay && !waitingForConfirmation && (
         <Notice tone="caution" title="Pay by card to place this order">
           {job.company.name} pays by card: the order goes to the warehouse once the payment is confirmed.
-          {job.totals.totalCents > 0 ? ` Total ${formatMoney(job.totals.totalCents)} inc GST.` : ''}
+          {job.totals.totalCents > 0 ? ` Total ${formatMoney(job.totals.totalCents)} inc GST.` : ' The plan’s lines are priced when you pay; the checkout shows the total inc GST.'}
         </Notice>
       )}
       <div className="flex flex-wrap gap-2">
