@@ -415,5 +415,5 @@ describe('the installer portal, password pages and the outbox', () => {
       await expectNoAxeViolations(admin, `${where}outbox message`);
       if (size) await expectWithinWidth(admin, 'outbox message');
     }
-  });
+  }, 240_000);
 });
