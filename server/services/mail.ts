@@ -2,7 +2,7 @@
 // (so a rolled-back order sends nothing), and PostgreSQL's NOTIFY, delivered only on commit, wakes
 // the mail queue (server/jobs/mail-queue.ts), which sends it with retries. A refused or slow SMTP
 // server therefore never blocks or undoes the business action.
-import { and, desc, eq, ilike, inArray, isNull, ne, sql, type SQL } from 'drizzle-orm';
+import { and, desc, eq, ilike, inArray, isNull, sql, type SQL } from 'drizzle-orm';
 import type { Transporter } from 'nodemailer';
 import type { Db, DbOrTx } from '../db/client.ts';
 import { companies, jobs, mailOutbox, user } from '../db/schema/index.ts';
@@ -191,15 +191,18 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
       }
     },
 
-    /** Messages waiting with nobody sending them (the queue was down when they were written, or a sender died). */
-    async stranded(olderThan: Date) {
+    /**
+     * Messages nobody is sending: still `queued` (their notification was missed while the queue was
+     * down), or left `sending` for hours by a sender that died (longer than every retry together).
+     * `retrying` ones belong to pg-boss's own retries.
+     */
+    async stranded(olderThan: Date, stuckSince = new Date(olderThan.getTime() - 2 * 3_600_000)) {
+      await db.update(mailOutbox).set({ status: 'retrying' }).where(and(eq(mailOutbox.status, 'sending'), sql`${mailOutbox.createdAt} < ${stuckSince}`));
       const rows = await db
         .select({ id: mailOutbox.id })
         .from(mailOutbox)
-        .where(and(ne(mailOutbox.status, 'sent'), ne(mailOutbox.status, 'failed'), sql`${mailOutbox.createdAt} < ${olderThan}`, isNull(mailOutbox.sentAt)))
+        .where(and(sql`(${mailOutbox.status} = 'queued' and ${mailOutbox.createdAt} < ${olderThan}) or (${mailOutbox.status} = 'retrying' and ${mailOutbox.createdAt} < ${stuckSince})`, isNull(mailOutbox.sentAt)))
         .limit(500);
-      // A message left "sending" by a sender that died goes back to the queue.
-      await db.update(mailOutbox).set({ status: 'retrying' }).where(and(eq(mailOutbox.status, 'sending'), sql`${mailOutbox.createdAt} < ${olderThan}`));
       return rows.map((r) => r.id);
     },
   };

@@ -6,7 +6,7 @@ import type Stripe from 'stripe';
 import type { Db } from '../db/client.ts';
 import { companies, jobs, paymentEvents, payments } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
-import { AppError, ConflictError, NotFoundError } from '../errors.ts';
+import { AppError, ConflictError } from '../errors.ts';
 import { invoiceGst } from '@shared/domain/money.ts';
 import { PAYABLE, type JobService } from './jobs.ts';
 import type { MailService } from './mail.ts';
@@ -92,7 +92,8 @@ export function createPaymentService({ db, provider, webhookSecret, appUrl, jobs
         const [fresh] = await tx.insert(paymentEvents).values({ eventId: event.id, type: event.type }).onConflictDoNothing().returning();
         if (!fresh) return { duplicate: true, hadHolds: false, jobId: null };
         const [payment] = await tx.select().from(payments).where(eq(payments.sessionId, session.id)).for('update');
-        if (!payment) throw new NotFoundError('That checkout');
+        // A checkout we never opened (another system on the same account): acknowledged, nothing done.
+        if (!payment) return { duplicate: false, hadHolds: false, jobId: null };
         if (payment.status !== 'pending') return { duplicate: true, hadHolds: false, jobId: null };
         if (session.amount_total !== payment.amountCents) throw new ConflictError('The amount paid does not match the checkout.');
         const intent = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
