@@ -16,9 +16,9 @@ export const DEMO_VERSION = 1;
 export const DEMO_SIGN_INS = signIns as { email: string; role: Role; name: string; company?: string }[];
 
 const INSTALLERS = [
-  { name: 'Brightgum Electrical', suburb: 'Thornbury', postcode: '3071', accountType: 'trade' as const, tierDiscountPct: '8' },
-  { name: 'Southerly Solar & Storage', suburb: 'Mornington', postcode: '3931', accountType: 'trade' as const, tierDiscountPct: '5' },
-  { name: 'Saltbush Home Energy', suburb: 'Ballarat', postcode: '3350', accountType: 'cash' as const, tierDiscountPct: '0' },
+  { name: 'Brightgum Electrical', abn: '14 987 650 002', suburb: 'Thornbury', postcode: '3071', accountType: 'trade' as const, tierDiscountPct: '8' },
+  { name: 'Southerly Solar & Storage', abn: '84 987 650 003', suburb: 'Mornington', postcode: '3931', accountType: 'cash' as const, tierDiscountPct: '5' },
+  { name: 'Saltbush Home Energy', abn: '65 987 650 004', suburb: 'Ballarat', postcode: '3350', accountType: 'cash' as const, tierDiscountPct: '0' },
 ];
 
 /** Seeds once: a second run finds the marker and adds nothing. */

@@ -42,7 +42,7 @@ export async function makeCompany(db: DbOrTx, fields: Partial<typeof companies.$
 
 export async function wholesaler(db: DbOrTx) {
   const [found] = await db.select().from(companies).where(eq(companies.kind, 'wholesaler')).limit(1);
-  return found ?? makeCompany(db, { name: 'Lowtide Battery Wholesale', kind: 'wholesaler' });
+  return found ?? makeCompany(db, { name: 'Lowtide Battery Wholesale', kind: 'wholesaler', abn: '33 987 650 001' });
 }
 
 export interface MakeUserOptions {

@@ -88,11 +88,11 @@ export async function seedDemoJobs(db: Db) {
 
   // Southerly Solar & Storage (Hamish)
   const jetty = await make(hamish, undefined, 'SS-0317 Jetty Rd', ['Mornington', '3931'], { planIds: [await plan(hamish, 'Shed, 5 Jetty Rd', hearth!.id, 4, 'Mornington', '3931')], preferredWarehouse: 'NTH' });
-  await service.order(hamish, jetty);
+  await service.order(sales, jetty); // Southerly pays by card: the desk ordered these after taking payment by phone
   await service.reserve(sales, jetty);
 
   const point = await make(hamish, undefined, 'SS-0318 Point Nepean', ['Sorrento', '3943'], { planIds: [await plan(hamish, 'Plant room, Point Nepean Rd', tor!.id, 5, 'Sorrento', '3943')] });
-  await service.order(hamish, point);
+  await service.order(sales, point);
   await service.reserve(sales, point);
 
   const esplanade = await make(sales, southerly, 'SS-0319 Esplanade', ['Frankston', '3199'], { lines: [{ sku: scarce.sku, qty: 2 }, { sku: plenty[1]!.sku, qty: 4 }] });
@@ -102,7 +102,7 @@ export async function seedDemoJobs(db: Db) {
   await make(hamish, undefined, 'SS-0320 Main St', ['Hastings', '3915'], { lines: [{ sku: plenty[0]!.sku, qty: 6 }] });
 
   const tanti = await make(hamish, undefined, 'SS-0321 Tanti Ave', ['Mornington', '3931'], { lines: [{ sku: plenty[1]!.sku, qty: 2 }] });
-  await service.order(hamish, tanti);
+  await service.order(sales, tanti);
 
   // One job the warehouse has started picking (the pick screen arrives with the warehouse work).
   const bluff = await make(sales, southerly, 'SS-0322 Bluff Rd', ['Mount Martha', '3934'], { lines: [{ sku: plenty[0]!.sku, qty: 2 }] });

@@ -19,6 +19,9 @@ import { partRoutes } from './routes/parts.ts';
 import { stackPlanRoutes } from './routes/stack-plans.ts';
 import { stockRoutes } from './routes/stock.ts';
 import { jobRoutes } from './routes/jobs.ts';
+import { mailRoutes } from './routes/mail.ts';
+import { paymentRoutes, paymentWebhookRoute } from './routes/payments.ts';
+import { portalRoutes } from './routes/portal.ts';
 import { createServices, type AppDeps, type AppOptions } from './deps.ts';
 
 export { createServices, type AppDeps, type AppOptions };
@@ -71,6 +74,8 @@ export function createApp(options: AppOptions, deps: AppDeps = createServices(op
   const router = Router();
   const api = new Api(router);
   router.use(noStore, originCheck(options.trustedOrigins));
+  // Before the JSON parser: the provider signs the raw bytes.
+  paymentWebhookRoute(api, deps);
   router.use(express.json({ limit: '1mb' }));
   router.use(sessionMiddleware(options.auth, deps.sessionCache));
   systemRoutes(api, deps);
@@ -79,6 +84,9 @@ export function createApp(options: AppOptions, deps: AppDeps = createServices(op
   stackPlanRoutes(api, deps);
   stockRoutes(api, deps);
   jobRoutes(api, deps);
+  mailRoutes(api, deps);
+  paymentRoutes(api, deps);
+  portalRoutes(api, deps);
   // Routes are fixed once the app is built, so the document is generated once.
   let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {

@@ -6,6 +6,8 @@ import { adminAc, defaultStatements } from 'better-auth/plugins/admin/access';
 import type { Logger } from 'pino';
 import type { Db } from './db/client.ts';
 import * as schema from './db/schema/index.ts';
+import { enqueueMail } from './services/mail.ts';
+import { invitationContext, RESET_LINK_SECONDS } from './mail/invitations.ts';
 
 /** The header our own middleware sets from the socket address, so rate limits key on the real client. */
 export const CLIENT_IP_HEADER = 'x-stackyard-client-ip';
@@ -65,7 +67,20 @@ export function createAuth({ db, baseURL, secret, trustedOrigins, signInLimitPer
         accountRelations: schema.accountRelations,
       },
     }),
-    emailAndPassword: { enabled: true, disableSignUp: true, minPasswordLength: 10, maxPasswordLength: 128 },
+    emailAndPassword: {
+      enabled: true,
+      disableSignUp: true,
+      minPasswordLength: 10,
+      maxPasswordLength: 128,
+      resetPasswordTokenExpiresIn: RESET_LINK_SECONDS,
+      revokeSessionsOnPasswordReset: true,
+      // The library makes the link; the outbox sends it (an invitation when a user was just added for someone).
+      sendResetPassword: async ({ user: u, url }) => {
+        const invite = invitationContext.getStore();
+        if (invite) await enqueueMail(db, { event: 'invitation', to: u.email, data: { name: u.name, inviterName: invite.inviterName, companyName: invite.companyName, url }, refs: { userId: u.id } });
+        else await enqueueMail(db, { event: 'password-reset', to: u.email, data: { name: u.name, url }, refs: { userId: u.id } });
+      },
+    },
     user: { additionalFields: { companyId: { type: 'string', required: false, input: false } } },
     session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24 },
     rateLimit: {

@@ -13,6 +13,11 @@ import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerSer
 import { createTtlCache } from './lib/ttl-cache.ts';
 import { createStockService, type StockService } from './services/stock.ts';
 import { createJobService, type JobService } from './services/jobs.ts';
+import type Stripe from 'stripe';
+import { createMailService, type MailService } from './services/mail.ts';
+import { createPaymentService, type PaymentService } from './services/payments.ts';
+import { createInvoiceService, type InvoiceService } from './services/invoices.ts';
+import { createPortalService, type PortalService } from './services/portal.ts';
 
 /** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
 export interface AppOptions {
@@ -30,6 +35,10 @@ export interface AppOptions {
   now?: () => Date;
   /** How many days a quote (a draft's reservation) holds its units. */
   quoteHoldDays?: number;
+  /** The address people open links in e-mails at; defaults to the first trusted origin. */
+  appUrl?: string;
+  /** The card payment provider (the SDK, pointed at the stand-in or the real provider) and its webhook secret. */
+  payment: { provider: Stripe; webhookSecret: string };
 }
 
 /** Options plus the services built from them. Routes take only the part they use (`Pick<AppDeps, …>`). */
@@ -43,6 +52,10 @@ export interface AppDeps extends AppOptions {
   planner: PlannerService;
   stock: StockService;
   jobs: JobService;
+  mail: MailService;
+  payments: PaymentService;
+  invoices: InvoiceService;
+  portal: PortalService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks, tests and benchmarks. */
@@ -51,16 +64,26 @@ export function createServices(options: AppOptions): AppDeps {
   const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
   const sessionCache = createSessionCache();
   const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (tx, ids) => partsIndex.sync(tx, [...new Set(ids)]) });
+  const appUrl = options.appUrl ?? options.trustedOrigins[0] ?? 'http://127.0.0.1:3000';
+  const mail = createMailService({ db: options.db, appUrl });
+  // Cancelling a paid job refunds it: the payment service is made after the jobs service it uses.
+  const late: { payments?: PaymentService } = {};
+  const jobs = createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays, mail, onCancelled: (id) => late.payments!.refundJob(id) });
+  const payments = (late.payments = createPaymentService({ db: options.db, provider: options.payment.provider, webhookSecret: options.payment.webhookSecret, appUrl, jobs, mail, logger: options.logger }));
   return {
     ...options,
     partsIndex,
     sessionCache,
     system: createSystemService({ db: options.db, search: options.search }),
-    users: createUserService({ ...options, onAccessChanged: sessionCache.clear }),
+    users: createUserService({ ...options, appUrl, onAccessChanged: sessionCache.clear }),
     catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
     media: createMediaService({ db: options.db, files: options.files, partsIndex }),
     planner,
     stock: createStockService({ db: options.db, now: options.now }),
-    jobs: createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays }),
+    jobs,
+    mail,
+    payments,
+    invoices: createInvoiceService({ db: options.db, jobs }),
+    portal: createPortalService({ db: options.db, planner }),
   };
 }

@@ -5,6 +5,9 @@ import { buildContext } from './context.ts';
 import { createApp, createServices } from './app.ts';
 import { createHttpServer } from './http/server.ts';
 import { startScheduler } from './jobs/quote-expiry.ts';
+import { startMailQueue } from './jobs/mail-queue.ts';
+import { createMailTransport } from './mail/transport.ts';
+import { smtpUrl } from './context.ts';
 import { createPartsIndex } from './search/parts-index.ts';
 
 const env = readEnv();
@@ -21,11 +24,22 @@ if (cluster.isPrimary) {
   if (index?.rebuilt) context.logger.info(`search index rebuilt with ${index.documents} parts`);
   // Scheduled work (quote holds lapsing) runs in the primary, on the same PostgreSQL, with its own
   // small pool (the primary's is closed when workers serve).
-  const scheduler = await startScheduler({ connectionString: env.DATABASE_URL, jobs: createServices({ ...context, db: createDb(env.DATABASE_URL, { max: 3 }) }).jobs, logger: context.logger }).catch((e: Error) => {
+  const background = createServices({ ...context, db: createDb(env.DATABASE_URL, { max: 3 }) });
+  const scheduler = await startScheduler({ connectionString: env.DATABASE_URL, jobs: background.jobs, logger: context.logger }).catch((e: Error) => {
     context.logger.error({ err: e }, 'scheduler not started: quote holds will not lapse until it runs');
     return null;
   });
-  const stopScheduler = () => void scheduler?.stop({ graceful: false, close: true });
+  // Mail goes out through the same pg-boss instance; messages wait in the outbox while it is down.
+  const mailQueue = scheduler
+    ? await startMailQueue({ boss: scheduler, connectionString: env.DATABASE_URL, mail: background.mail, transport: createMailTransport(smtpUrl(env)), logger: context.logger }).catch((e: Error) => {
+        context.logger.error({ err: e }, 'mail queue not started: messages wait in the outbox');
+        return null;
+      })
+    : null;
+  const stopScheduler = () => {
+    void mailQueue?.stop();
+    void scheduler?.stop({ graceful: false, close: true });
+  };
   process.once('SIGTERM', stopScheduler);
   process.once('SIGINT', stopScheduler);
 }

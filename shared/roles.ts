@@ -48,6 +48,9 @@ export const ABILITIES = {
   'stock.receive': ['admin', 'warehouse'],
   'stock.limits': ['admin', 'purchasing', 'warehouse'],
   'warehouses.manage': ['admin'],
+  'outbox.view': ['admin'],
+  'payments.create': ['admin', 'sales', 'installer'],
+  'invoices.view': ['admin', 'purchasing', 'sales', 'installer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Ability = keyof typeof ABILITIES;

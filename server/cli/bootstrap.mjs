@@ -3,6 +3,7 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, statSync, chownSync, writeFileSync, readFileSync } from 'node:fs';
 import { createHash } from 'node:crypto';
+import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -242,6 +243,26 @@ export function waitForHttp(url, timeoutMs = 30_000) {
         .catch(retry);
     };
     const retry = () => (Date.now() > deadline ? reject(new Error(`${url} did not answer`)) : setTimeout(attempt, 150));
+    attempt();
+  });
+}
+
+/** Resolves once something accepts TCP connections on the loopback port (the SMTP stand-in). */
+export function waitForPort(port, timeoutMs = 30_000) {
+  const deadline = Date.now() + timeoutMs;
+  return new Promise((resolve, reject) => {
+    const attempt = () => {
+      const socket = net.connect(port, '127.0.0.1');
+      socket.once('connect', () => {
+        socket.destroy();
+        resolve();
+      });
+      socket.once('error', () => {
+        socket.destroy();
+        if (Date.now() > deadline) reject(new Error(`nothing answered on port ${port}`));
+        else setTimeout(attempt, 150);
+      });
+    };
     attempt();
   });
 }

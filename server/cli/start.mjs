@@ -3,8 +3,8 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { ensureNodeModules, ensurePostgres, fail, log, newestMtime, onShutdown, root, spawnChild, spawnTs, waitForHttp } from './bootstrap.mjs';
-import { DEV_PG_PORT, DEV_SEARCH_PORT, DEMO_SIGN_INS, STANDIN_NODE_OPTIONS } from './settings.mjs';
+import { ensureNodeModules, ensurePostgres, fail, log, newestMtime, onShutdown, root, spawnChild, spawnTs, waitForHttp, waitForPort } from './bootstrap.mjs';
+import { DEV_PAY_PORT, DEV_PG_PORT, DEV_SEARCH_PORT, DEV_SMTP_PORT, DEMO_SIGN_INS, STANDIN_NODE_OPTIONS } from './settings.mjs';
 
 const dev = process.argv.includes('--dev');
 const port = Number(process.env.PORT ?? 3000);
@@ -32,6 +32,22 @@ if (!process.env.MEILI_HOST) {
   process.env.MEILI_HOST = `http://127.0.0.1:${searchPort}`;
   spawnTs('server/search/standin/main.ts', { name: 'search stand-in', env: { SEARCH_PORT: String(searchPort), NODE_OPTIONS: STANDIN_NODE_OPTIONS } });
   await waitForHttp(`${process.env.MEILI_HOST}/health`);
+}
+
+// Mail: the SMTP stand-in keeps every message in PostgreSQL unless SMTP_URL names a real server.
+if (!process.env.SMTP_URL) {
+  const smtpPort = Number(process.env.SMTP_PORT ?? DEV_SMTP_PORT);
+  process.env.SMTP_PORT = String(smtpPort);
+  spawnTs('server/mail/standin/main.ts', { name: 'mail stand-in' });
+  await waitForPort(smtpPort);
+}
+
+// Card payments: the provider stand-in unless real keys are set (STRIPE_SECRET_KEY without STRIPE_API_BASE).
+if (!process.env.STRIPE_SECRET_KEY || process.env.STRIPE_API_BASE) {
+  const payPort = Number(process.env.PAY_PORT ?? DEV_PAY_PORT);
+  process.env.STRIPE_API_BASE ??= `http://127.0.0.1:${payPort}`;
+  spawnTs('server/payments/standin/main.ts', { name: 'payment stand-in', env: { PAY_PORT: String(payPort), PAY_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/payments/webhook` } });
+  await waitForPort(payPort);
 }
 
 if (dev) {

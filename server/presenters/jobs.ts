@@ -49,6 +49,8 @@ export function presentJob(d: Detail): Job {
     backorders: d.queue.map((b) => ({ sku: b.sku, qty: b.qty, since: b.since.toISOString(), position: b.position, unitsAhead: b.unitsAhead })),
     history: d.history.map((h) => ({ status: h.status, at: h.at.toISOString(), by: h.by, note: h.note })),
     totals: { subtotalCents: gst.exCents, gstCents: gst.gstCents, totalCents: gst.incCents, unpricedLines: d.lines.length - priced.length },
+    paymentTerms: d.paymentTerms,
+    payment: d.payment ? { status: d.payment.status, amountCents: Number(d.payment.amountCents), paidAt: d.payment.paidAt.toISOString() } : null,
     abilities: d.abilities,
   };
 }

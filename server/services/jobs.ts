@@ -10,7 +10,9 @@ import type { PlannerService } from './planner.ts';
 import { createReservationGroups } from './reservation-groups.ts';
 import { heldByLine, inStockTransaction, newReference, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
 import { gatherHolds } from './hold-transfers.ts';
-import { assertReservable, reservationPlan } from './reservations.ts';
+import { assertReservable, reservationPlan, reserveInTx } from './reservations.ts';
+import type { MailService } from './mail.ts';
+import { unitPriceFor } from './pricing.ts';
 
 export interface JobDeps {
   db: Db;
@@ -19,15 +21,22 @@ export interface JobDeps {
   now?: () => Date;
   /** How long a quote (a draft's reservation) holds its units. */
   quoteHoldDays?: number;
+  /** Messages about the job, written in the transaction of the change they report. */
+  mail?: Pick<MailService, 'jobOrdered' | 'jobBackorders'>;
+  /** Runs after a job is cancelled (a card payment is refunded). */
+  onCancelled?: (jobId: string) => Promise<void>;
 }
 
 const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const BEFORE_PICKING: JobStatus[] = ['draft', 'ordered', 'reserved', 'part-reserved'];
+/** Card accounts pay to place the order (a draft); what the desk orders for them it settles itself. A job is invoiced once ordered. */
+export const PAYABLE: JobStatus[] = ['draft'];
+export const INVOICED: JobStatus[] = ['ordered', 'reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected', 'closed'];
 const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
 
 type JobRow = typeof jobs.$inferSelect;
 
-export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7 }: JobDeps) {
+export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7, mail, onCancelled }: JobDeps) {
   const reserveGrouped = createReservationGroups(db);
   const jobByIdQuery = db.select().from(jobs).where(eq(jobs.id, sql.placeholder('id'))).prepare('job_by_id');
   /** The job if the actor may see it; another company's job is "not found". */
@@ -63,7 +72,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     const [last] = await tx.select({ n: sql<number>`coalesce(max(${jobLines.lineNo}), 0)::int` }).from(jobLines).where(eq(jobLines.jobId, job.id));
     let lineNo = last?.n ?? 0;
     if (lines.length)
-      await tx.insert(jobLines).values(lines.map((l) => ({ jobId: job.id, lineNo: ++lineNo, partId: found.get(l.sku)!.id, qty: l.qty, planId: l.planId, reason: l.reason, unitPriceCents: found.get(l.sku)!.listPriceCents })));
+      await tx.insert(jobLines).values(lines.map((l) => ({ jobId: job.id, lineNo: ++lineNo, partId: found.get(l.sku)!.id, qty: l.qty, planId: l.planId, reason: l.reason, unitPriceCents: unitPriceFor(job.companyId, found.get(l.sku)!) })));
     await tx.update(jobs).set({ linesCopiedAt: now() }).where(eq(jobs.id, job.id));
   }
 
@@ -74,6 +83,9 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     .select({
       job: jobs,
       company: { id: companies.id, name: companies.name },
+      accountType: companies.accountType,
+      payment: sql<{ status: 'paid' | 'refunded'; amountCents: number; paidAt: string } | null>`(select json_build_object('status', p.status, 'amountCents', p.amount_cents, 'paidAt', p.paid_at)
+        from payments p where p.job_id = "jobs"."id" and p.status in ('paid', 'refunded') order by p.paid_at desc limit 1)`,
       preferredCode: warehouses.code,
       preferredName: warehouses.name,
       plans: sql<{ id: string; name: string; rangeName: string; summary: unknown }[]>`(select coalesce(json_agg(json_build_object('id', sp.id, 'name', sp.name, 'rangeName', rg.name, 'summary', sp.summary) order by sp.name), '[]')
@@ -112,15 +124,21 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     const history = head.history.map((h) => ({ ...h, status: h.status as JobStatus, at: new Date(h.at) }));
     const holding = held.length > 0;
     const fullyHeld = lines.length > 0 && lines.every((l) => l.reserved >= l.qty);
+    const hasWork = lines.length > 0 || plans.length > 0;
+    const payment = head.payment ? { ...head.payment, paidAt: new Date(head.payment.paidAt) } : null;
     const abilities = {
-      order: can(actor.role, 'jobs.create') && job.status === 'draft' && (lines.length > 0 || plans.length > 0),
+      // A card-paying customer orders by paying; the desk may still order for them (paid another way).
+      order: can(actor.role, 'jobs.create') && job.status === 'draft' && hasWork && !(head.accountType === 'cash' && isCompanyBound(actor)),
+      pay: can(actor.role, 'payments.create') && head.accountType === 'cash' && !payment && hasWork && PAYABLE.includes(job.status),
+      invoice: can(actor.role, 'invoices.view') && INVOICED.includes(job.status),
+      reorder: can(actor.role, 'jobs.create') && hasWork,
       reserve: can(actor.role, 'jobs.reserve') && ['draft', 'ordered', 'part-reserved'].includes(job.status) && !fullyHeld && (lines.length > 0 || plans.length > 0),
       release: can(actor.role, 'jobs.reserve') && BEFORE_PICKING.includes(job.status) && (holding || queue.length > 0),
       cancel: can(actor.role, 'jobs.cancel') && BEFORE_PICKING.includes(job.status),
       gather: can(actor.role, 'stock.transfer') && (job.status === 'reserved' || job.status === 'part-reserved') && held.some((r) => r.needsTransfer),
     };
     const holdExpiresAt = held.reduce<Date | null>((min, r) => (r.expiresAt && (!min || r.expiresAt < min) ? r.expiresAt : min), null);
-    return { job, company, preferred, plans, lines, held, queue, history, abilities, holdExpiresAt };
+    return { job, company, preferred, plans, lines, held, queue, history, abilities, holdExpiresAt, paymentTerms: head.accountType, payment };
   }
 
   /** Shared by reserve (as a quote on a draft) and order: the plans' lines are copied in first. */
@@ -133,6 +151,39 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     });
   }
 
+  /** Orders a draft inside the caller's transaction (an installer's order, or a confirmed card payment). True when a quote held units. */
+  async function orderInTx(tx: Tx, id: string, userId: string | null, note: string | null, lines: { sku: string; qty: number; planId: string; reason: string }[] = []) {
+    const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+    if (locked!.status !== 'draft') throw new ConflictError(`This job is already ${locked!.status}; only a draft can be ordered.`);
+    await copyPlanLines(tx, locked!, lines);
+    const { rows } = await heldByLine(tx, id);
+    if (rows.length === 0) throw new ConflictError('This job has no lines to order.');
+    await tx.update(jobs).set({ orderedAt: now() }).where(eq(jobs.id, id));
+    await record(tx, id, 'ordered', userId, note);
+    await mail?.jobOrdered(tx, id);
+    return rows.some((r) => r.held > 0);
+  }
+
+  /** Makes a quote's holds firm after ordering; the backorders message follows if anything is short. */
+  async function firmUp(userId: string | null, id: string) {
+    const plan = await reservationPlan(db, id);
+    if (plan.lines.length === 0) return;
+    await inStockTransaction(db, (tx) => reserveInTx(tx, id, plan, { userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly: true }));
+    await announceBackorders(id, 0);
+  }
+
+  const backorderedUnits = async (id: string) => {
+    const { rows } = await db.execute<{ n: number }>(sql`select coalesce(sum(b.qty), 0)::int as n from backorders b join job_lines jl on jl.id = b.job_line_id where jl.job_id = ${id}`);
+    return rows[0]?.n ?? 0;
+  };
+
+  /** Tells the customer which lines wait on backorder, when reserving left more short than before. */
+  async function announceBackorders(id: string, before: number) {
+    if (!mail) return;
+    if ((await backorderedUnits(id)) <= before) return;
+    await db.transaction((tx) => mail.jobBackorders(tx, id));
+  }
+
   /** Atomic per job (a savepoint in a group's transaction, retried on deadlock or serialization failure); the last check is the database's. */
   async function reserveJob(actor: Actor, jobId: string, firmUpOnly = false) {
     const plan = await reservationPlan(db, jobId);
@@ -140,10 +191,10 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     return reserveGrouped(jobId, plan, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly });
   }
 
-  return {
+  const service = {
     detail,
 
-    async create(actor: Actor, input: CreateJobInput) {
+    async create(actor: Actor, input: CreateJobInput & { reason?: string }) {
       authorize(actor, 'jobs.create');
       const companyId = companyForNew(actor, input.companyId);
       if (!companyId) throw new ValidationError('Choose the customer account this job is for.', { fields: [{ path: 'companyId', message: 'Choose a customer account.' }] });
@@ -169,7 +220,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
             .returning({ id: jobs.id });
           const jobId = row!.id;
           if (planIds.length) await tx.insert(jobPlans).values(planIds.map((planId) => ({ jobId, planId })));
-          if (extra.length) await tx.insert(jobLines).values(extra.map((l, i) => ({ jobId, lineNo: i + 1, partId: found.get(l.sku)!.id, qty: l.qty, reason: 'Added by SKU', unitPriceCents: found.get(l.sku)!.listPriceCents })));
+          if (extra.length) await tx.insert(jobLines).values(extra.map((l, i) => ({ jobId, lineNo: i + 1, partId: found.get(l.sku)!.id, qty: l.qty, reason: input.reason ?? 'Added by SKU', unitPriceCents: unitPriceFor(companyId, found.get(l.sku)!) })));
           if (planIds.length === 0) await tx.update(jobs).set({ linesCopiedAt: at }).where(eq(jobs.id, jobId));
           await tx.insert(jobStatusHistory).values({ jobId, status: 'draft', userId: actor.userId, at });
           return jobId;
@@ -225,18 +276,13 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const job = await visibleJob(actor, id);
       if (job.status !== 'draft') throw new ConflictError(`This job is already ${job.status}; only a draft can be ordered.`);
       const lines = job.linesCopiedAt ? [] : await planLines(actor, job.id);
-      const hadHolds = await db.transaction(async (tx) => {
-        const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
-        if (locked!.status !== 'draft') throw new ConflictError(`This job is already ${locked!.status}; only a draft can be ordered.`);
-        await copyPlanLines(tx, locked!, lines);
-        const { rows } = await heldByLine(tx, id);
-        if (rows.length === 0) throw new ConflictError('This job has no lines to order.');
-        await tx.update(jobs).set({ orderedAt: now() }).where(eq(jobs.id, id));
-        await record(tx, id, 'ordered', actor.userId);
-        return rows.some((r) => r.held > 0);
-      });
+      if (isCompanyBound(actor)) {
+        const [c] = await db.select({ accountType: companies.accountType }).from(companies).where(eq(companies.id, job.companyId));
+        if (c?.accountType === 'cash') throw new ConflictError('Your account pays by card: pay for this job to place the order.');
+      }
+      const hadHolds = await db.transaction((tx) => orderInTx(tx, id, actor.userId, null, lines));
       // Units a quote held become the order's: made firm (and topped up) in the reservation's own transaction.
-      if (hadHolds) await reserveJob(actor, id, true);
+      if (hadHolds) await firmUp(actor.userId, id);
       return detail(actor, id);
     },
 
@@ -245,7 +291,9 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const job = await visibleJob(actor, id);
       assertReservable(job.status);
       if (job.status === 'draft') await materialise(actor, job);
+      const before = await backorderedUnits(id);
       await reserveJob(actor, id);
+      if (job.status !== 'draft') await announceBackorders(id, before);
       return detail(actor, id);
     },
 
@@ -273,6 +321,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
         if (!BEFORE_PICKING.includes(locked!.status)) throw new ConflictError(`This job is ${locked!.status} and can no longer be cancelled.`);
         await record(tx, id, 'cancelled', actor.userId, units ? `Released ${units} reserved units` : null);
       });
+      await onCancelled?.(id);
       return detail(actor, id);
     },
 
@@ -295,6 +344,40 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       return detail(actor, id);
     },
 
+    /**
+     * A new draft with the same lines (at today's prices) or, for a draft whose plans were never
+     * copied in, the same plans. Its reference is the old one marked "again".
+     */
+    async reorder(actor: Actor, id: string) {
+      authorize(actor, 'jobs.create');
+      const d = await detail(actor, id);
+      const lines = d.lines.map((l) => ({ sku: l.sku, qty: l.qty }));
+      const planIds = lines.length ? [] : d.plans.map((p) => p.id);
+      if (!lines.length && !planIds.length) throw new ConflictError('This job has nothing to order again.');
+      const base = d.job.reference.replace(/ \(again(?: \d+)?\)$/, '');
+      for (let n = 1; n <= 50; n++) {
+        const mark = n === 1 ? ' (again)' : ` (again ${n})`;
+        const reference = base.slice(0, 40 - mark.length) + mark;
+        try {
+          return await service.create(actor, { companyId: d.company.id, reference, siteSuburb: d.job.siteSuburb ?? undefined, sitePostcode: d.job.sitePostcode ?? undefined, contact: d.job.contact ?? undefined, planIds, lines, reason: `Ordered again from ${d.job.reference}` });
+        } catch (e) {
+          if (!(e instanceof ConflictError)) throw e;
+        }
+      }
+      throw new ConflictError('Give the new job a reference of its own: this one has been ordered again many times.');
+    },
+
+    /** A draft with its plans' lines copied in, so it can be priced (before a card payment). */
+    async priced(actor: Actor, id: string) {
+      authorize(actor, 'jobs.view');
+      const job = await visibleJob(actor, id);
+      if (job.status === 'draft') await materialise(actor, job);
+      return detail(actor, id);
+    },
+
+    orderInTx,
+    firmUp,
+
     /** Releases quote holds that have lapsed by `at` (the scheduled job calls this). Returns the jobs touched. */
     async expireQuoteHolds(at: Date = now()) {
       const due = await db
@@ -314,6 +397,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       return { jobs: due.length, units };
     },
   };
+  return service;
 }
 
 export type JobService = ReturnType<typeof createJobService>;

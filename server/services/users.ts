@@ -7,6 +7,7 @@ import { assertCompanyFitsRole } from '../policies/company-scope.ts';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../errors.ts';
 import type { CreateUserInput, UpdateUserInput } from '@shared/contracts/users.ts';
 import { companyKindOf, type Role } from '@shared/roles.ts';
+import { invitationContext, RESET_PAGE_PATH } from '../mail/invitations.ts';
 
 export interface UserRecord {
   id: string;
@@ -27,7 +28,7 @@ export interface UserRecord {
  *
  * `onAccessChanged` runs after anything that changes who may do what (sessions remembered elsewhere drop).
  */
-export function createUserService({ db, auth, onAccessChanged = () => {} }: { db: Db; auth: Auth; onAccessChanged?: () => void }) {
+export function createUserService({ db, auth, appUrl, onAccessChanged = () => {} }: { db: Db; auth: Auth; appUrl: string; onAccessChanged?: () => void }) {
   const columns = {
     id: user.id,
     name: user.name,
@@ -63,8 +64,16 @@ export function createUserService({ db, auth, onAccessChanged = () => {} }: { db
     return actor.credentials;
   }
 
+  /** Sends the new user an invitation: a link to choose their own password (the library's reset token). */
+  async function invite(actor: Actor, u: UserRecord) {
+    await invitationContext.run({ inviterName: actor.name, companyName: u.companyName ?? 'Stackyard' }, () =>
+      auth.api.requestPasswordReset({ body: { email: u.email, redirectTo: `${appUrl}${RESET_PAGE_PATH}` } }),
+    );
+  }
+
   return {
     find,
+    invite,
 
     async list(actor: Actor, q?: string) {
       authorize(actor, 'users.manage');
@@ -81,7 +90,9 @@ export function createUserService({ db, auth, onAccessChanged = () => {} }: { db
         headers: as(actor),
         body: { email: input.email, password: input.password, name: input.name, role: input.role as never, data: { companyId } },
       });
-      return find(created.user.id);
+      const made = await find(created.user.id);
+      await invite(actor, made);
+      return made;
     },
 
     async update(actor: Actor, id: string, input: UpdateUserInput) {

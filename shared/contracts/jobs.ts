@@ -88,8 +88,12 @@ export const JobSchema = JobHeadSchema.extend({
   backorders: z.array(z.object({ sku: text(), qty: z.number(), since: text(), position: z.number(), unitsAhead: z.number() })),
   history: z.array(z.object({ status: z.enum(JOB_STATUSES), at: text(), by: text().nullable(), note: text().nullable() })),
   totals: z.object({ subtotalCents: z.number(), gstCents: z.number(), totalCents: z.number(), unpricedLines: z.number() }),
+  /** How the customer pays: trade accounts on invoice terms, cash accounts by card before the order stands. */
+  paymentTerms: z.enum(['trade', 'cash']),
+  /** The card payment that went through (null when none has). */
+  payment: z.object({ status: z.enum(['paid', 'refunded']), amountCents: z.number(), paidAt: text() }).nullable(),
   /** What the signed-in user may do with this job now. */
-  abilities: z.object({ order: z.boolean(), reserve: z.boolean(), release: z.boolean(), cancel: z.boolean(), gather: z.boolean() }),
+  abilities: z.object({ order: z.boolean(), reserve: z.boolean(), release: z.boolean(), cancel: z.boolean(), gather: z.boolean(), pay: z.boolean(), invoice: z.boolean(), reorder: z.boolean() }),
 });
 export type Job = z.infer<typeof JobSchema>;
 

@@ -10,6 +10,16 @@ const router = createBrowserRouter([
     errorElement: <RouteError />,
   },
   {
+    path: paths.forgotPassword.path,
+    lazy: () => import('./routes/password.tsx').then((m) => ({ Component: m.ForgotPasswordRoute })),
+    errorElement: <RouteError />,
+  },
+  {
+    path: paths.resetPassword.path,
+    lazy: () => import('./routes/password.tsx').then((m) => ({ Component: m.ResetPasswordRoute })),
+    errorElement: <RouteError />,
+  },
+  {
     // Pages behind sign-in. The frame is part of the first download and draws at once; it checks
     // the session itself (no session → the sign-in page, remembering where the user was going).
     path: '/',
@@ -38,6 +48,8 @@ const router = createBrowserRouter([
           { path: paths.stockLow.path, lazy: () => import('./routes/stock-low.tsx').then((m) => ({ Component: m.StockLowRoute })) },
           { path: paths.warehouses.path, lazy: () => import('./routes/admin-warehouses.tsx').then((m) => ({ Component: m.AdminWarehousesRoute })) },
           { path: paths.users.path, lazy: () => import('./routes/admin-users.tsx').then((m) => ({ Component: m.AdminUsersRoute })) },
+          { path: paths.outbox.path, lazy: () => import('./routes/admin-outbox.tsx').then((m) => ({ Component: m.AdminOutboxRoute })) },
+          { path: paths.outboxMessage.path, lazy: () => import('./routes/admin-outbox-message.tsx').then((m) => ({ Component: m.AdminOutboxMessageRoute })) },
           { path: '*', lazy: () => import('./routes/not-found.tsx').then((m) => ({ Component: m.NotFoundRoute })) },
         ],
       },

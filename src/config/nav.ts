@@ -19,4 +19,5 @@ export const NAV: NavItem[] = [
   { label: 'Stock', href: paths.stock.href(), needs: 'stock.view', blurb: 'Levels per warehouse and bin, the movement ledger, receipts, adjustments and transfers.' },
   { label: 'Warehouses', href: paths.warehouses.href(), needs: 'warehouses.manage', blurb: 'Warehouses by rank and their bins in pick order.' },
   { label: 'Users', href: paths.users.href(), needs: 'users.manage', blurb: 'Create sign-ins, set roles and companies, reset passwords, deactivate.' },
+  { label: 'Outbox', href: paths.outbox.href(), needs: 'outbox.view', blurb: 'Every e-mail Stackyard has written: to whom, about what, and whether it went.' },
 ];

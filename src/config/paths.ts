@@ -11,7 +11,7 @@ export const paths = {
   planner: { path: '/planner', href: (search?: string) => (search ? `/planner?${search}` : '/planner') },
   plans: { path: '/plans', href: () => '/plans' },
   plan: { path: '/plans/:id', href: (id: string) => `/plans/${encodeURIComponent(id)}` },
-  jobs: { path: '/jobs', href: () => '/jobs' },
+  jobs: { path: '/jobs', href: (status?: string) => (status ? `/jobs?status=${encodeURIComponent(status)}` : '/jobs') },
   jobNew: { path: '/jobs/new', href: (planId?: string) => (planId ? `/jobs/new?plan=${encodeURIComponent(planId)}` : '/jobs/new') },
   job: { path: '/jobs/:id', href: (id: string) => `/jobs/${encodeURIComponent(id)}` },
   stock: { path: '/stock', href: (search?: string) => (search ? `/stock?${search}` : '/stock') },
@@ -20,4 +20,8 @@ export const paths = {
   stockLow: { path: '/stock/low', href: () => '/stock/low' },
   warehouses: { path: '/admin/warehouses', href: () => '/admin/warehouses' },
   rangeEdit: { path: '/ranges/:code/edit', href: (code: string) => `/ranges/${encodeURIComponent(code)}/edit` },
+  outbox: { path: '/admin/outbox', href: () => '/admin/outbox' },
+  outboxMessage: { path: '/admin/outbox/:id', href: (id: string) => `/admin/outbox/${encodeURIComponent(id)}` },
+  resetPassword: { path: '/reset-password', href: () => '/reset-password' },
+  forgotPassword: { path: '/forgot-password', href: () => '/forgot-password' },
 } as const;

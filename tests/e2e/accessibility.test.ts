@@ -2,6 +2,8 @@
 // by keyboard alone, what axe cannot see (focus, shortcuts, announcements), and 390 px phones.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
+import { sql } from 'drizzle-orm';
+import { enqueueMail } from '../../server/services/mail.ts';
 import { axeViolations, signInAs, startBrowserHarness, type BrowserHarness, waitForText } from './support.ts';
 
 let h: BrowserHarness;
@@ -381,4 +383,41 @@ describe('the frame and the user forms', () => {
     const row = page.getByRole('table', { name: 'Users' }).getByRole('row').filter({ hasText: 'Noor Haddad' });
     await waitForText(row, /Installer.*Saltbush Home Energy/);
   });
+});
+
+describe('the installer portal, password pages and the outbox', () => {
+  it('finds nothing on them and keeps them within a phone’s width', async () => {
+    const draft = (await h.t.db.execute<{ id: string }>(sql`select j.id from jobs j join companies c on c.id = j.company_id where c.account_type = 'cash' and j.status = 'draft' order by j.reference limit 1`)).rows[0]!;
+    const message = await enqueueMail(h.t.db, { event: 'password-reset', to: 'someone-with-a-long-address@brightgum-electrical.test', data: { name: 'Someone', url: `${h.baseUrl}/reset-password?token=x` } });
+    for (const size of [undefined, { width: 390, height: 844 }]) {
+      const where = size ? 'phone ' : '';
+      const anon = await h.newPage(size);
+      for (const [state, url, heading] of [
+        ['forgotten password', '/forgot-password', /^Forgotten password$/],
+        ['choose a password', '/reset-password?token=abc', /^Choose a password$/],
+      ] as [string, string, RegExp][]) {
+        await settled(anon, url, heading);
+        await expectNoAxeViolations(anon, `${where}${state}`);
+        if (size) await expectWithinWidth(anon, url);
+      }
+      const installer = await h.newPage(size);
+      await signInAs(installer, 'installer2@stackyard.test');
+      for (const [state, url, heading] of [
+        ['portal home', '/', /Good to see you/],
+        ['unpaid card job', `/jobs/${draft.id}`, /./],
+      ] as [string, string, RegExp][]) {
+        await settled(installer, url, heading);
+        await expectNoAxeViolations(installer, `${where}${state}`);
+        if (size) await expectWithinWidth(installer, url);
+      }
+      const admin = await h.newPage(size);
+      await signInAs(admin, 'admin@stackyard.test');
+      await settled(admin, '/admin/outbox', /^Outbox$/);
+      await expectNoAxeViolations(admin, `${where}outbox`);
+      if (size) await expectWithinWidth(admin, '/admin/outbox');
+      await settled(admin, `/admin/outbox/${message}`, /^Choose a new Stackyard password$/);
+      await expectNoAxeViolations(admin, `${where}outbox message`);
+      if (size) await expectWithinWidth(admin, 'outbox message');
+    }
+  }, 240_000);
 });

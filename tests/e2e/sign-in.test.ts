@@ -8,7 +8,7 @@ beforeAll(async () => {
 afterAll(() => h?.close());
 
 const ROLES = [
-  { email: 'admin@stackyard.test', role: 'Administrator', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock', 'Warehouses', 'Users'] },
+  { email: 'admin@stackyard.test', role: 'Administrator', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock', 'Warehouses', 'Users', 'Outbox'] },
   { email: 'purchasing@stackyard.test', role: 'Purchasing', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock'] },
   { email: 'warehouse@stackyard.test', role: 'Warehouse', nav: ['Home', 'Catalogue', 'Jobs', 'Stock'] },
   { email: 'sales@stackyard.test', role: 'Trade desk', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock'] },

@@ -15,7 +15,9 @@ export type FixtureKey =
   | 'customer' // company A (the installer's own), for staff saving plans for a customer
   | 'job' // a job of company A, made by its installer
   | 'warehouse' // a demo warehouse
-  | 'bin'; // a bin of `warehouse`
+  | 'bin' // a bin of `warehouse`
+  | 'mail' // a message in the outbox
+  | 'orderedJob'; // an ordered job of company A that no route cancels (it has a tax invoice)
 export type Fixtures = Record<FixtureKey, string>;
 
 export interface OperationAccess {
@@ -115,6 +117,16 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'PUT /api/warehouses/{id}': { allow: admins, params: { id: 'warehouse' } },
   'POST /api/warehouses/{id}/bins': { allow: admins, params: { id: 'warehouse' } },
   'PUT /api/warehouses/{id}/bins/{binId}': { allow: admins, params: { id: 'warehouse', binId: 'bin' } },
+
+  // mail, payments and invoices (issue 13)
+  'GET /api/admin/outbox': { allow: admins },
+  'GET /api/admin/outbox/{id}': { allow: admins, params: { id: 'mail' } },
+  'POST /api/jobs/{id}/payments': { allow: jobMakers, companyOwned: true, params: { id: 'job' } },
+  'POST /api/payments/webhook': { allow: 'public' },
+  'GET /api/portal/summary': { allow: everyone },
+  'POST /api/stack-plans/alternatives': { allow: planners, body: plan },
+  'POST /api/jobs/{id}/reorder': { allow: jobMakers, companyOwned: true, params: { id: 'orderedJob' } },
+  'GET /api/jobs/{id}/invoice.pdf': { allow: ['admin', 'purchasing', 'sales', 'installer'], companyOwned: true, params: { id: 'orderedJob' } },
 };
 
 export type Caller = 'anonymous' | Role | 'other-installer';

@@ -5,6 +5,7 @@ import supertest from 'supertest';
 import { sql } from 'drizzle-orm';
 import { seedDemo } from '../../seed/demo.ts';
 import { makeUser } from '../../seed/factories.ts';
+import { enqueueMail } from '../../server/services/mail.ts';
 import { ROLES } from '../../shared/roles.ts';
 import type { TestApp } from './app.ts';
 import type { Caller, Fixtures } from './access-table.ts';
@@ -52,8 +53,11 @@ export async function arrangeFixtures(t: TestApp): Promise<{ fixtures: Fixtures;
   const job = await agents.installer.post('/api/jobs').send({ reference: 'Own company job', lines: [{ sku, qty: 1 }] }).expect(201);
   const { rows: binRows } = await t.db.execute<{ warehouse: string; bin: string }>(sql`select warehouse_id as warehouse, id as bin from bins order by code limit 1`);
   const { warehouse, bin } = binRows[0]!;
+  const invoiced = await agents.installer.post('/api/jobs').send({ reference: 'Own company ordered job', lines: [{ sku, qty: 1 }] }).expect(201);
+  await agents.installer.post(`/api/jobs/${invoiced.body.data.id}/order`).expect(200);
+  const mail = await enqueueMail(t.db, { event: 'password-reset', to: 'fixture@example.test', data: { name: 'Fixture', url: 'http://127.0.0.1/reset' } });
   return {
-    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin },
+    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin, mail, orderedJob: invoiced.body.data.id },
     agents,
   };
 }

@@ -4,3 +4,5 @@ export * from './catalogue.ts';
 export * from './stock.ts';
 export * from './plans.ts';
 export * from './jobs.ts';
+export * from './mail.ts';
+export * from './payments.ts';

@@ -5,6 +5,7 @@ import { useMe } from '@/features/auth/api/get-me.ts';
 import { NAV } from '@/config/nav.ts';
 import { Page, Card } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
+import { PortalSummaryPanel } from '@/features/portal/components/portal-summary.tsx';
 
 /** What each role can do here today: only work that has a screen. */
 const INTRO: Record<Role, string> = {
@@ -12,7 +13,7 @@ const INTRO: Record<Role, string> = {
   purchasing: 'Keep the catalogue complete (parts, prices, costs and supplier codes) and the ranges’ BOM rules current.',
   warehouse: 'Find any part by name, code or barcode, and see its stock in each warehouse.',
   sales: 'Find parts and plan battery systems for every trade account, and keep their draft plans.',
-  installer: 'Plan battery systems for your sites: the bill of materials, what is in stock, and drafts you can reopen.',
+  installer: 'Plan battery systems for your sites, order them, pay for them and follow each job until the kit is in your hands.',
 };
 
 export function HomeRoute() {
@@ -25,6 +26,11 @@ export function HomeRoute() {
       <p className="mb-4 max-w-2xl text-ink-soft" data-testid="home-intro">
         {INTRO[me.role]}
       </p>
+      {me.role === 'installer' && (
+        <div className="mb-6">
+          <PortalSummaryPanel />
+        </div>
+      )}
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
         {links.map((l) => (
           <Link key={l.href} to={l.href} className="block">

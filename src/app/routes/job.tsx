@@ -1,4 +1,4 @@
-import { Link, useParams } from 'react-router';
+import { Link, useParams, useSearchParams } from 'react-router';
 import { Page, PageLoading, Card } from '@/components/ui/page.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
@@ -9,10 +9,14 @@ import { JobActions } from '@/features/jobs/components/job-actions.tsx';
 import { JobLines } from '@/features/jobs/components/job-lines.tsx';
 import { JobStock } from '@/features/jobs/components/job-stock.tsx';
 import { JobHistory } from '@/features/jobs/components/job-history.tsx';
+import { JobPaperwork } from '@/features/jobs/components/job-paperwork.tsx';
 
 export function JobRoute() {
   const { id = '' } = useParams();
-  const job = useJob(id);
+  const [search] = useSearchParams();
+  const justPaid = search.get('paid') === '1';
+  // Back from the card checkout: the webhook confirms the payment moments later, so look again until it has.
+  const job = useJob(id, justPaid ? (j) => j.payment !== null : undefined);
   if (job.error) {
     return (
       <Page title="Job">
@@ -51,6 +55,7 @@ export function JobRoute() {
     >
       <div className="space-y-4">
         <JobActions job={j} />
+        <JobPaperwork job={j} justPaid={justPaid} />
         {j.holdExpiresAt && j.status === 'draft' && <Notice tone="caution">Stock is held for this quote until {formatDate(j.holdExpiresAt)}. Order the job to keep it.</Notice>}
         {j.backorders.length > 0 && (
           <Notice tone="caution" title="Waiting for stock">

@@ -23,6 +23,7 @@ import { PlanErrorNotice } from '@/features/planner/components/plan-error.tsx';
 import { PlanActions } from '@/features/planner/components/plan-actions.tsx';
 import { PlanSheet } from '@/features/planner/components/plan-sheet.tsx';
 import { SavePlanForm } from '@/features/planner/components/save-plan-form.tsx';
+import { PlanAlternatives } from '@/features/planner/components/plan-alternatives.tsx';
 import { formatDate } from '@/lib/format.ts';
 
 /** Long enough to skip the keystrokes in between; the browser's own figures never wait. */
@@ -144,6 +145,15 @@ export function PlannerRoute() {
                     ownCompany={me?.company?.name}
                     onCancel={() => setSaving(false)}
                     onSaved={(saved) => navigate(paths.plan.href(saved.id))}
+                  />
+                )}
+                {confirmed && shown.bom.some((l) => (l.stock?.short ?? 0) > 0) && (
+                  <PlanAlternatives
+                    request={request}
+                    onChoose={(a) => {
+                      setSaving(false);
+                      update({ range: a.rangeCode, mode: 'modules', modules: String(a.modulesPerStack), stacks: String(a.stacks) });
+                    }}
                   />
                 )}
                 <PlanSheet

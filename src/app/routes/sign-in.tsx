@@ -1,6 +1,7 @@
 import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
-import { useNavigate, useSearchParams } from 'react-router';
+import { Link, useNavigate, useSearchParams } from 'react-router';
+import { paths } from '@/config/paths.ts';
 import { useSignIn } from '@/features/auth/api/sign-in.ts';
 import { TextField } from '@/components/ui/field.tsx';
 import { Button } from '@/components/ui/button.tsx';
@@ -60,7 +61,12 @@ export function SignInRoute() {
           <Button type="submit" variant="primary" className="w-full" disabled={signIn.isPending}>
             {signIn.isPending ? 'Signing in…' : 'Sign in'}
           </Button>
-          <p className="text-xs text-ink-soft">Accounts are created by your administrator. Forgotten your password? Ask them to set a new one.</p>
+          <p className="text-xs text-ink-soft">
+            Accounts are created by your administrator.{' '}
+            <Link to={paths.forgotPassword.href()} className="text-copper underline">
+              Forgotten your password?
+            </Link>
+          </p>
         </form>
       </main>
     </div>

@@ -7,4 +7,6 @@ export const getJob = (id: string) => api<{ data: Job }>(`/jobs/${encodeURICompo
 
 export const jobQueryOptions = (id: string) => queryOptions({ queryKey: jobKeys.detail(id), queryFn: () => getJob(id) });
 
-export const useJob = (id: string) => useQuery(jobQueryOptions(id));
+/** `pollUntil`: look again every 1.5 s until it says the job is as wanted (a payment confirmed elsewhere). */
+export const useJob = (id: string, pollUntil?: (job: Job) => boolean) =>
+  useQuery({ ...jobQueryOptions(id), refetchInterval: pollUntil ? (q) => (q.state.data && pollUntil(q.state.data) ? false : 1500) : false });
