@@ -13,6 +13,8 @@ import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerSer
 import { createTtlCache } from './lib/ttl-cache.ts';
 import { createStockService, type StockService } from './services/stock.ts';
 import { createJobService, type JobService } from './services/jobs.ts';
+import { createPickingService, type PickingService } from './services/picking.ts';
+import { createLabelsService, type LabelsService } from './services/labels.ts';
 
 /** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
 export interface AppOptions {
@@ -43,6 +45,8 @@ export interface AppDeps extends AppOptions {
   planner: PlannerService;
   stock: StockService;
   jobs: JobService;
+  picking: PickingService;
+  labels: LabelsService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks, tests and benchmarks. */
@@ -62,5 +66,7 @@ export function createServices(options: AppOptions): AppDeps {
     planner,
     stock: createStockService({ db: options.db, now: options.now }),
     jobs: createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays }),
+    picking: createPickingService({ db: options.db, now: options.now }),
+    labels: createLabelsService({ db: options.db, planner, publicUrl: options.trustedOrigins[0] ?? 'http://127.0.0.1:3000', now: options.now }),
   };
 }
