@@ -48,7 +48,8 @@ const LABELLED: JobStatus[] = ['reserved', 'part-reserved', 'picking', 'ready', 
  */
 export function orderReferenceOf(jobReference: string): string | null {
   const head = jobReference.trim().split(/\s+/)[0] ?? '';
-  return head && head.length <= 30 && isGs1Text(head) ? head : null;
+  // A number, not a word: letters, digits and dashes with at least one digit.
+  return /^[A-Za-z0-9][A-Za-z0-9./-]*$/.test(head) && /\d/.test(head) && head.length <= 30 && isGs1Text(head) ? head : null;
 }
 
 /** Parcels for a kit: each unit with cells travels on its own (heavy, dangerous goods); the rest share one. */

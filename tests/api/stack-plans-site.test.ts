@@ -2,9 +2,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { sql } from 'drizzle-orm';
-import { createRequire } from 'node:module';
-import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { createTestApp, type TestApp } from '../support/app.ts';
+import { pdfText } from '../support/pdf-text.ts';
 import { seedCatalogue } from '../../seed/catalogue.ts';
 import { parts as demoParts } from '../../seed/data/catalogue.ts';
 import { winAnsi } from '../../server/documents/plan-pdf.ts';
@@ -23,27 +22,6 @@ const binary = (res: request.Response, cb: (err: Error | null, body: Buffer) => 
   res.on('data', (c: Buffer) => chunks.push(c));
   res.on('end', () => cb(null, Buffer.concat(chunks)));
 };
-
-/**
- * Every page's text, in reading order, with whitespace made single spaces, and the runs of
- * text that reach past the page's right edge (text drawn there is in the file but not seen).
- */
-async function pdfText(buffer: Buffer): Promise<{ text: string; offPage: string[] }> {
-  const fonts = `${createRequire(import.meta.url).resolve('pdfjs-dist/package.json').replace(/package\.json$/, '')}standard_fonts/`;
-  const doc = await getDocument({ data: new Uint8Array(buffer), standardFontDataUrl: fonts, verbosity: 0 }).promise;
-  const pages: string[] = [];
-  const offPage: string[] = [];
-  for (let i = 1; i <= doc.numPages; i++) {
-    const page = await doc.getPage(i);
-    const [, , right] = page.view;
-    const content = await page.getTextContent();
-    for (const item of content.items) {
-      if ('str' in item && item.transform[4] + item.width > right) offPage.push(item.str);
-    }
-    pages.push(content.items.map((item) => ('str' in item ? item.str : '')).join(' '));
-  }
-  return { text: pages.join(' ').replace(/\s+/g, ' '), offPage };
-}
 
 describe('site inputs', () => {
   it('plans for the site given and states the defaults it assumed', async () => {

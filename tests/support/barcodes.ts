@@ -22,9 +22,8 @@ export function decodePng(png: Buffer, { gs1 = false }: { gs1?: boolean } = {}) 
     [DecodeHintType.TRY_HARDER, true],
   ]);
   if (gs1) hints.set(DecodeHintType.ASSUME_GS1, true);
-  const reader = new MultiFormatReader();
-  reader.setHints(hints);
   const source = new RGBLuminanceSource(luminance, width, height);
-  const result = reader.decode(new BinaryBitmap(new HybridBinarizer(source)));
+  // decode(image, hints) replaces the reader's hints, so they go in here.
+  const result = new MultiFormatReader().decode(new BinaryBitmap(new HybridBinarizer(source)), hints);
   return { text: result.getText(), format: BarcodeFormat[result.getBarcodeFormat()] };
 }
