@@ -5,10 +5,9 @@ import request from 'supertest';
 import { sql } from 'drizzle-orm';
 import { createTestApp, TEST_ORIGIN, type TestApp } from '../support/app.ts';
 import { ledgerDifferences, stockSnapshot } from '../support/ledger.ts';
-import { makePart, makeWarehouse, putStock } from '../../seed/factories.ts';
-import { gs1CheckDigit } from '../../shared/domain/gtin.ts';
+import { makePart, makeWarehouse } from '../../seed/factories.ts';
+import { makeKit, pickKit, post, scanId, type Agent } from '../support/pick-kit.ts';
 
-type Agent = Awaited<ReturnType<TestApp['signIn']>>;
 let t: TestApp;
 let warehouse: Agent;
 let warehouse2: Agent;
@@ -17,15 +16,6 @@ let installer: Agent;
 let otherInstaller: Agent;
 let main: { id: string };
 let north: { id: string };
-let n = 0;
-
-/** A GTIN-13 under GS1's documentation prefix, with its check digit (GS1 General Specifications §7.9.1). */
-const gtin = (item: number) => {
-  const body = `0614141${String(item).padStart(5, '0')}`;
-  return body + gs1CheckDigit(body);
-};
-const scanId = () => `test-${Date.now().toString(36)}-${(n++).toString(36)}-${Math.random().toString(36).slice(2, 8)}`;
-
 beforeAll(async () => {
   t = await createTestApp();
   main = await makeWarehouse(t.db, { code: 'MAIN', rank: 1 });
@@ -36,25 +26,7 @@ beforeAll(async () => {
 afterAll(() => t.close());
 afterEach(async () => expect(await ledgerDifferences(t.db)).toEqual([]));
 
-const post = (agent: Agent, path: string, body: unknown = {}) => agent.post(path).set('origin', TEST_ORIGIN).send(body as object);
-
-let item = 100;
-/** A kit to pick: 2 modules with cells (serialised) in MAIN B-20, 5 brackets with a GTIN in MAIN A-10, 3 covers without one in NTH C-05. */
-async function kit(reference = `PK-${item} Test St`) {
-  item += 10;
-  const module = await makePart(t.db, { sku: `TST-MOD-${item}`, name: 'Test module 5 kWh', category: 'module', gtin: gtin(item), massKg: 48, attributes: { category: 'module', nominalV: 51.2, ratedAh: 100, chemistry: 'LFP' } as never, dangerousGoods: { unNumber: 'UN3480', class: '9', whRating: 5120 } });
-  const bracket = await makePart(t.db, { sku: `TST-BRK-${item}`, gtin: gtin(item + 1) });
-  const cover = await makePart(t.db, { sku: `TST-CVR-${item}` });
-  await putStock(t.db, module.id, main.id, 'B-20', 4, { pickOrder: 20, isDefault: true });
-  await putStock(t.db, bracket.id, main.id, 'A-10', 10, { pickOrder: 10, isDefault: true });
-  await putStock(t.db, cover.id, north.id, 'C-05', 6, { pickOrder: 5, isDefault: true });
-  const job = await post(sales, '/api/jobs', { companyId: installer.companyId, reference, siteSuburb: 'Thornbury', lines: [{ sku: module.sku, qty: 2 }, { sku: bracket.sku, qty: 5 }, { sku: cover.sku, qty: 3 }] });
-  expect(job.status).toBe(201);
-  const id = job.body.data.id as string;
-  expect((await post(sales, `/api/jobs/${id}/order`)).status).toBe(200);
-  expect((await post(sales, `/api/jobs/${id}/reserve`)).body.data.status).toBe('reserved');
-  return { id, reference, module, bracket, cover, moduleGtin14: gtin(item).padStart(14, '0'), bracketGtin14: gtin(item + 1).padStart(14, '0') };
-}
+const kit = (reference?: string) => makeKit(t, { sales, installer }, { main, north }, reference);
 
 const scan = (jobId: string, code: string, extra: { qty?: number; scanId?: string } = {}, agent = warehouse) => post(agent, `/api/jobs/${jobId}/pick/scans`, { code, scanId: extra.scanId ?? scanId(), ...(extra.qty ? { qty: extra.qty } : {}) });
 const pickState = async (jobId: string) => (await t.db.execute(sql`select (select count(*)::int from pick_scans where job_id = ${jobId}) as scans, (select status from jobs where id = ${jobId}) as status, (select current_line_id from pick_sessions where job_id = ${jobId}) as current`)).rows[0];
@@ -90,7 +62,7 @@ describe('scans', () => {
 
   it('refuses a wrong part, an unknown barcode, a serial on a counted part and an over-pick, saying what was expected and changing nothing', async () => {
     const k = await kit();
-    const stranger = await makePart(t.db, { sku: `TST-STRANGER-${item}` });
+    const stranger = await makePart(t.db, { sku: `${k.cover.sku}-STRANGER` });
     await scan(k.id, k.cover.sku, { qty: 3 });
     const before = { pick: await pickState(k.id), stock: await stockSnapshot(t.db) };
 
@@ -153,13 +125,6 @@ describe('scans', () => {
 });
 
 describe('completing the pick', () => {
-  async function pickAll(k: Awaited<ReturnType<typeof kit>>, serials = ['HX5-1', 'HX5-2']) {
-    await scan(k.id, k.cover.sku, { qty: 3 });
-    await scan(k.id, k.bracket.sku, { qty: 5 });
-    await scan(k.id, k.module.sku);
-    for (const s of serials) expect((await scan(k.id, s)).body.data.accepted).toBe(true);
-  }
-
   it('refuses while lines are open, then issues the kit once: movements, holds consumed, serials attached, job ready', async () => {
     const k = await kit();
     await scan(k.id, k.cover.sku, { qty: 3 });
@@ -203,9 +168,9 @@ describe('completing the pick', () => {
 
   it('refuses a serial already issued to another job', async () => {
     const first = await kit();
-    await pickAll(first, ['HX5-9001', 'HX5-9002']);
+    await pickKit(warehouse, first, ['HX5-9001', 'HX5-9002']);
     // The same part on a second job: its serial HX5-9001 has gone out already.
-    const job = await post(sales, '/api/jobs', { companyId: installer.companyId, reference: `PK-${item} Second`, lines: [{ sku: first.module.sku, qty: 1 }] });
+    const job = await post(sales, '/api/jobs', { companyId: installer.companyId, reference: `${first.reference} second`, lines: [{ sku: first.module.sku, qty: 1 }] });
     await post(sales, `/api/jobs/${job.body.data.id}/order`);
     await post(sales, `/api/jobs/${job.body.data.id}/reserve`);
     expect((await post(warehouse, `/api/jobs/${first.id}/pick/complete`)).status).toBe(200);
@@ -234,7 +199,7 @@ describe('who may pick', () => {
     const bad = await post(warehouse, `/api/jobs/${k.id}/pick/scans`, { code: '', scanId: 'x' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('validation_failed');
-    const draft = await post(sales, '/api/jobs', { companyId: installer.companyId, reference: `PK-${item} Draft`, lines: [{ sku: k.cover.sku, qty: 1 }] });
+    const draft = await post(sales, '/api/jobs', { companyId: installer.companyId, reference: `${k.reference} draft`, lines: [{ sku: k.cover.sku, qty: 1 }] });
     const refused = await scan(draft.body.data.id, k.cover.sku);
     expect(refused.status).toBe(409);
     expect(refused.body.error.message).toBe('This job is draft; only a reserved job can be picked.');
