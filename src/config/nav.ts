@@ -19,4 +19,5 @@ export const NAV: NavItem[] = [
   { label: 'Stock', href: paths.stock.href(), needs: 'stock.view', blurb: 'Levels per warehouse and bin, the movement ledger, receipts, adjustments and transfers.' },
   { label: 'Warehouses', href: paths.warehouses.href(), needs: 'warehouses.manage', blurb: 'Warehouses by rank and their bins in pick order.' },
   { label: 'Users', href: paths.users.href(), needs: 'users.manage', blurb: 'Create sign-ins, set roles and companies, reset passwords, deactivate.' },
+  { label: 'Picking', href: paths.pickQueue.href(), needs: 'jobs.pick', blurb: 'Reserved jobs to pick, oldest first: scan each part and serial, print labels and the handover sheet.' },
 ];

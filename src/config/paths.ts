@@ -20,4 +20,9 @@ export const paths = {
   stockLow: { path: '/stock/low', href: () => '/stock/low' },
   warehouses: { path: '/admin/warehouses', href: () => '/admin/warehouses' },
   rangeEdit: { path: '/ranges/:code/edit', href: (code: string) => `/ranges/${encodeURIComponent(code)}/edit` },
+  pickQueue: { path: '/picking', href: () => '/picking' },
+  pick: { path: '/jobs/:id/pick', href: (id: string) => `/jobs/${encodeURIComponent(id)}/pick` },
+  pickList: { path: '/jobs/:id/pick-list', href: (id: string) => `/jobs/${encodeURIComponent(id)}/pick-list` },
+  labels: { path: '/jobs/:id/labels', href: (id: string) => `/jobs/${encodeURIComponent(id)}/labels` },
+  handover: { path: '/jobs/:id/handover', href: (id: string) => `/jobs/${encodeURIComponent(id)}/handover` },
 } as const;
