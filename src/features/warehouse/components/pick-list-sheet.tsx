@@ -43,7 +43,7 @@ export function PickListSheet({ list }: { list: PickList }) {
             <tbody>
               {g.lines.map((l) => (
                 <tr key={l.lineId} className="break-inside-avoid border-b border-black/40 align-top">
-                  <td className="num py-1.5 pr-2 font-semibold">{l.places.map((p) => (p.needsTransfer ? `${p.bin} (transfer first)` : p.bin)).join(', ')}</td>
+                  <td className="num whitespace-nowrap py-1.5 pr-2 font-semibold">{l.places.map((p) => (p.needsTransfer ? `${p.bin} (transfer first)` : p.bin)).join(', ')}</td>
                   <td className="py-1.5 pr-2">
                     <span className="num font-semibold">{l.sku}</span> {l.name}
                     {l.serialised && <span className="block">Serialised: scan each unit’s serial.</span>}

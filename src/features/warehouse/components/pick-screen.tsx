@@ -194,17 +194,19 @@ export function PickScreen({ list }: { list: PickList }) {
               {g.lines.map((l) => {
                 const lineDone = l.picked >= l.qty;
                 return (
-                  <li key={l.lineId} className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1 px-3 py-2">
+                  <li key={l.lineId} className="grid grid-cols-[minmax(0,1fr)_auto] items-start gap-x-4 px-3 py-2">
                     <span className="min-w-0">
-                      <span className="num block text-lg font-semibold">{l.sku}</span>
+                      <span className="num block break-all text-lg font-semibold">{l.sku}</span>
                       <span className="block text-sm text-ink-soft">{l.name}</span>
-                      {l.serials.length > 0 && <span className="num block text-sm">Serials: {l.serials.join(', ')}</span>}
+                      {l.serials.length > 0 && <span className="num block break-all text-sm">Serials: {l.serials.join(', ')}</span>}
                     </span>
-                    <span className="num text-lg">{l.places.map((p) => p.bin).join(', ')}</span>
-                    <span className={`num text-xl font-semibold ${lineDone ? 'text-teal' : ''}`}>
-                      <span aria-hidden="true">{lineDone ? '✓ ' : ''}</span>
-                      {l.picked} / {l.qty}
-                      <span className="sr-only">{lineDone ? ' picked' : ' to pick'}</span>
+                    <span className="text-right">
+                      <span className={`num block text-xl font-semibold ${lineDone ? 'text-teal' : ''}`}>
+                        <span aria-hidden="true">{lineDone ? '✓ ' : ''}</span>
+                        {l.picked} / {l.qty}
+                        <span className="sr-only">{lineDone ? ' picked' : ' to pick'}</span>
+                      </span>
+                      <span className="num block text-base">{l.places.map((p) => p.bin).join(', ')}</span>
                     </span>
                   </li>
                 );
