@@ -20,29 +20,17 @@ export function HandoverSheet({ h }: { h: Handover }) {
         </h3>
         {h.systems.length === 0 && <p className="mt-1">This job was not made from a stack plan: see the parts below.</p>}
         {h.systems.map((s) => (
-          <dl key={s.name} className="mt-2 grid grid-cols-2 gap-x-4 gap-y-1 sm:grid-cols-3">
-            <div className="col-span-full font-semibold">
+          <div key={s.name} className="mt-2">
+            <p className="font-semibold">
               {s.name} <span className="font-normal text-ink-soft">({s.rangeName})</span>
-            </div>
-            <div>
-              <dt className="text-xs text-ink-soft">Stacks × modules</dt>
-              <dd className="num">
-                {s.stacks} × {s.modulesPerStack} ({s.modules})
-              </dd>
-            </div>
-            <div>
-              <dt className="text-xs text-ink-soft">Usable</dt>
-              <dd className="num">{formatNumber(s.usableKwh)} kWh</dd>
-            </div>
-            <div>
-              <dt className="text-xs text-ink-soft">Nominal voltage</dt>
-              <dd className="num">{formatNumber(s.nominalVoltage)} V</dd>
-            </div>
-            <div>
-              <dt className="text-xs text-ink-soft">DVC class</dt>
-              <dd className="num">DVC-{s.dvc}</dd>
-            </div>
-          </dl>
+            </p>
+            <dl className="mt-1 grid grid-cols-2 gap-x-4 gap-y-1 sm:grid-cols-4">
+              <Figure term="Stacks × modules" value={`${s.stacks} × ${s.modulesPerStack} (${s.modules})`} />
+              <Figure term="Usable" value={`${formatNumber(s.usableKwh)} kWh`} />
+              <Figure term="Nominal voltage" value={`${formatNumber(s.nominalVoltage)} V`} />
+              <Figure term="DVC class" value={`DVC-${s.dvc}`} />
+            </dl>
+          </div>
         ))}
       </section>
       <section aria-labelledby="serials-heading">
@@ -89,5 +77,14 @@ export function HandoverSheet({ h }: { h: Handover }) {
         </ul>
       </section>
     </article>
+  );
+}
+
+function Figure({ term, value }: { term: string; value: string }) {
+  return (
+    <div>
+      <dt className="text-xs text-ink-soft">{term}</dt>
+      <dd className="num">{value}</dd>
+    </div>
   );
 }

@@ -43,9 +43,9 @@ export function PickListSheet({ list }: { list: PickList }) {
             <tbody>
               {g.lines.map((l) => (
                 <tr key={l.lineId} className="break-inside-avoid border-b border-black/40 align-top">
-                  <td className="num whitespace-nowrap py-1.5 pr-2 font-semibold">{l.places.map((p) => (p.needsTransfer ? `${p.bin} (transfer first)` : p.bin)).join(', ')}</td>
+                  <td className="num py-1.5 pr-2 font-semibold max-sm:break-all sm:whitespace-nowrap">{l.places.map((p) => (p.needsTransfer ? `${p.bin} (transfer first)` : p.bin)).join(', ')}</td>
                   <td className="py-1.5 pr-2">
-                    <span className="num font-semibold">{l.sku}</span> {l.name}
+                    <span className="num break-all font-semibold">{l.sku}</span> {l.name}
                     {l.serialised && <span className="block">Serialised: scan each unit’s serial.</span>}
                     {l.lithium && (
                       <span className="mt-1 block border border-black p-1 text-xs">
@@ -55,7 +55,7 @@ export function PickListSheet({ list }: { list: PickList }) {
                   </td>
                   <td className="num py-1.5 pr-2 text-right text-base font-bold">{l.qty}</td>
                   <td className="py-1.5 text-center">
-                    <span aria-label="tick box" className="inline-block h-5 w-5 border-2 border-black" />
+                    <span aria-hidden="true" className="inline-block h-5 w-5 border-2 border-black" />
                   </td>
                 </tr>
               ))}
