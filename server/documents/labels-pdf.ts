@@ -19,10 +19,12 @@ export const LAYOUTS = {
 } as const;
 export type LabelLayout = keyof typeof LAYOUTS;
 
+/** The text at a size that fits the width: shrunk to at most 80 % of `size`, then cut with an ellipsis. */
 function fit(font: PDFFont, s: string, size: number, width: number) {
   let t = winAnsi(s);
-  while (t.length > 1 && font.widthOfTextAtSize(t, size) > width) t = t.slice(0, -2) + '…';
-  return t;
+  const fitted = Math.max(size * 0.8, Math.min(size, width / Math.max(1, font.widthOfTextAtSize(t, 1))));
+  while (t.length > 1 && font.widthOfTextAtSize(t, fitted) > width) t = t.slice(0, -2) + '…';
+  return { text: t, size: fitted };
 }
 
 export async function renderLabelsPdf(labels: SheetLabel[], layout: LabelLayout, title: string) {
@@ -49,7 +51,7 @@ export async function renderLabelsPdf(labels: SheetLabel[], layout: LabelLayout,
     const row = Math.floor(slot / L.cols);
     const x = (L.left + col * L.pitchX) * MM;
     const top = (L.page[1] - L.top - row * L.pitchY) * MM;
-    drawLabel(page!, label, { x, top, w: L.w * MM, h: L.h * MM }, layout === 'thermal' ? 2.4 : 1, { regular, bold }, shape);
+    drawLabel(page!, label, { x, top, w: L.w * MM, h: L.h * MM }, layout === 'thermal' ? 1.6 : 1, { regular, bold }, shape);
   });
   if (labels.length === 0) doc.addPage([L.page[0] * MM, L.page[1] * MM]);
   return Buffer.from(await doc.save());
@@ -58,19 +60,27 @@ export async function renderLabelsPdf(labels: SheetLabel[], layout: LabelLayout,
 function drawLabel(page: PDFPage, label: SheetLabel, box: { x: number; top: number; w: number; h: number }, k: number, fonts: { regular: PDFFont; bold: PDFFont }, shape: (s: BarcodeSpec) => VectorBarcode) {
   const pad = 2.5 * MM * k;
   const size = 6.5 * k;
-  const qrSide = label.qr ? Math.min(box.h * 0.45, box.w * 0.32) : 0;
-  const textWidth = box.w - pad * 2 - (qrSide ? qrSide + pad : 0);
+  // A tall (thermal) label has room for the QR code under the words; a sheet label puts it beside them.
+  const tall = box.h > box.w;
+  const qrSide = label.qr ? (tall ? box.w * 0.4 : Math.min(box.h * 0.45, box.w * 0.32)) : 0;
+  const textWidth = box.w - pad * 2 - (qrSide && !tall ? qrSide + pad : 0);
   let y = box.top - pad - size;
   label.lines.forEach((line, i) => {
     const font = i === 0 ? fonts.bold : fonts.regular;
     const s = i === 0 ? size * 1.15 : size;
-    page.drawText(fit(font, line, s, i < 4 ? textWidth : box.w - pad * 2), { x: box.x + pad, y, size: s, font, color: BLACK });
+    const f = fit(font, line, s, i < 4 ? textWidth : box.w - pad * 2);
+    page.drawText(f.text, { x: box.x + pad, y, size: f.size, font, color: BLACK });
     y -= s * 1.25;
   });
-  if (label.qr) drawBarcode(page, shape({ symbology: 'qrcode', bwipText: label.qr.payload }), { x: box.x + box.w - pad - qrSide, y: box.top - pad - qrSide, width: qrSide, height: qrSide });
+  if (label.qr) {
+    const qrTop = tall ? y - pad : box.top - pad;
+    drawBarcode(page, shape({ symbology: 'qrcode', bwipText: label.qr.payload }), { x: tall ? box.x + pad : box.x + box.w - pad - qrSide, y: qrTop - qrSide, width: qrSide, height: qrSide });
+    if (tall) y = qrTop - qrSide;
+  }
   const textSize = 5.5 * k;
   const barHeight = Math.max(6 * MM * k, Math.min(12 * MM * k, y - (box.top - box.h) - pad - textSize * 1.6));
   const bottom = box.top - box.h + pad + textSize * 1.4;
   drawBarcode(page, shape(label), { x: box.x + pad, y: bottom, width: box.w - pad * 2, height: barHeight });
-  page.drawText(fit(fonts.regular, label.text, textSize, box.w - pad * 2), { x: box.x + pad, y: bottom - textSize * 1.25, size: textSize, font: fonts.regular, color: BLACK });
+  const hri = fit(fonts.regular, label.text, textSize, box.w - pad * 2);
+  page.drawText(hri.text, { x: box.x + pad, y: bottom - textSize * 1.25, size: hri.size, font: fonts.regular, color: BLACK });
 }

@@ -115,7 +115,7 @@ export function createLabelsService({ db, planner, publicUrl, now = () => new Da
       for (const l of walk) {
         const where = l.places.map((p) => `${p.warehouse} ${p.bin}`).join(', ');
         const head = (qty: string) => [`${l.sku}  ·  ${qty}`, l.name, `Bin ${where}  ·  Job ${job.reference}`];
-        const dg = l.lithium ? [`${l.lithium} · ${LITHIUM_REMINDERS[0]}`] : [];
+        const dg = l.lithiumShort ? [`${l.lithiumShort} · ${LITHIUM_REMINDERS[0]}`] : [];
         if (l.serialised) {
           for (let u = 0; u < l.qty; u++) {
             const serial = l.serials[u] ?? null;

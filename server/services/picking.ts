@@ -10,7 +10,7 @@ import { can } from '@shared/roles.ts';
 import { ConflictError, NotFoundError } from '../errors.ts';
 import type { JobStatus } from '@shared/contracts/jobs.ts';
 import { SerialSchema, type PickScanInput, type PickScanResult, type PickState } from '@shared/contracts/warehouse.ts';
-import { isSerialised, lithiumHeadline, readScan } from '@shared/domain/warehouse.ts';
+import { isSerialised, lithiumHeadline, lithiumShort, readScan } from '@shared/domain/warehouse.ts';
 import { changeReserved, inStockTransaction, lockPartLevels, recordMovement } from './ledger.ts';
 
 export interface PickingDeps {
@@ -46,6 +46,8 @@ export interface LoadedLine {
   serialised: boolean;
   serials: string[];
   lithium: string | null;
+  /** The short form for labels. */
+  lithiumShort: string | null;
   massKg: number;
   places: PickPlace[];
 }
@@ -101,6 +103,7 @@ export async function loadPick(q: DbOrTx, jobId: string) {
       serialised: isSerialised(l.category),
       serials: own.filter((s) => s.serial).map((s) => s.serial!),
       lithium: l.un_number ? lithiumHeadline({ unNumber: l.un_number, dgClass: l.dg_class, whRating: l.wh_rating }) : null,
+      lithiumShort: l.un_number ? lithiumShort({ unNumber: l.un_number, dgClass: l.dg_class, whRating: l.wh_rating }) : null,
       massKg: l.mass_kg,
       places: [],
     };

@@ -20,6 +20,12 @@ export function lithiumHeadline(dg: { unNumber: string | null; dgClass: string |
   return `${un} lithium ion batteries, Class ${dg.dgClass ?? '9'}${wh}`;
 }
 
+/** The same in a label's width: "UN 3480 Class 9 · 5,120 Wh". */
+export function lithiumShort(dg: { unNumber: string | null; dgClass: string | null; whRating: number | null }) {
+  const un = (dg.unNumber ?? 'UN3480').replace(/^UN\s?/, 'UN ');
+  return `${un} Class ${dg.dgClass ?? '9'}${dg.whRating ? ` · ${dg.whRating.toLocaleString('en-AU')} Wh` : ''}`;
+}
+
 /** Installation cautions for the handover sheet (domain.md §9): the standards are the authority. */
 export const INSTALLATION_CAUTIONS = [
   'Battery installation is licensed electrical work: follow AS/NZS 5139, AS/NZS 3000, the maker’s installation manual and local rules.',

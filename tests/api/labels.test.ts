@@ -53,7 +53,7 @@ describe('labels', () => {
     expect(labels[1]!.payload).toBe(`01${k.moduleGtin14}21HX5-A1${GS}400BG-7001`);
     expect(labels[1]!.text).toBe(`(01)${k.moduleGtin14}(21)HX5-A1(400)BG-7001`);
     expect(labels[1]!.lines).toContain('Serial HX5-A1');
-    expect(labels[1]!.lines.at(-1)).toBe('UN 3480 lithium ion batteries, Class 9, 5,120 Wh per unit · heavy: two-person lift');
+    expect(labels[1]!.lines.at(-1)).toBe('UN 3480 Class 9 · 5,120 Wh · heavy: two-person lift');
     expect(labels[3]!.payload).toBe(k.cover.sku);
     const kits = labels.filter((l) => l.kind === 'kit');
     expect(kits.map((l) => l.lines[3])).toEqual(['Parcel 1 of 3', 'Parcel 2 of 3', 'Parcel 3 of 3']);
