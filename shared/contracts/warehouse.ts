@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { text } from './text.ts';
 import { JOB_STATUSES } from './jobs.ts';
 import { UnitsSchema } from './stock.ts';
+export { SerialSchema } from './stock.ts';
 
 /** A scan from the pick screen: the code as the scanner typed it, and the device's own id for it. */
 export const PickScanSchema = z.strictObject({
@@ -113,6 +114,3 @@ export const HandoverSchema = z.object({
   cautions: z.array(text()),
 });
 export type Handover = z.infer<typeof HandoverSchema>;
-
-/** A serial as printed by the maker and captured by scan: letters, digits, dash, dot, slash (a GS1 (21)-safe subset). */
-export const SerialSchema = text().trim().regex(/^[A-Za-z0-9][A-Za-z0-9./-]{0,19}$/, 'A serial is 1–20 letters, digits, dots, dashes or slashes.');
