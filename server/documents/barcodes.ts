@@ -2,7 +2,7 @@
 // as vector shapes for PDF sheets (crisp on a cheap laser printer, and no image to compress).
 import bwipjs from 'bwip-js/node';
 import sharp from 'sharp';
-import { rgb, type PDFPage } from 'pdf-lib';
+import { fill, popGraphicsState, pushGraphicsState, rectangle, rgb, setFillingRgbColor, type PDFPage } from 'pdf-lib';
 import type { Symbology } from '@shared/contracts/warehouse.ts';
 
 export interface BarcodeSpec {
@@ -64,6 +64,7 @@ export function drawBarcode(page: PDFPage, v: VectorBarcode, box: { x: number; y
     for (const d of v.paths) page.drawSvgPath(d, { x: box.x, y: box.y + v.height * s, scale: s, color: BLACK, borderWidth: 0 });
     return;
   }
+  // Every bar as one rectangle of a single filled path: one fill per symbol, not one per bar.
   const sx = box.width / v.width;
-  for (const b of v.bars) page.drawRectangle({ x: box.x + b.x * sx, y: box.y, width: b.w * sx, height: box.height, color: BLACK });
+  page.pushOperators(pushGraphicsState(), setFillingRgbColor(0, 0, 0), ...v.bars.map((b) => rectangle(box.x + b.x * sx, box.y, b.w * sx, box.height)), fill(), popGraphicsState());
 }
