@@ -80,13 +80,22 @@ export const TextAreaField = forwardRef<HTMLTextAreaElement, FieldProps & Textar
   const autoId = useId();
   const inputId = id ?? autoId;
   return (
-    <div className={className}>
-      <label htmlFor={inputId} className="mb-1 block text-xs font-semibold text-ink-soft">
-        {label}
-      </label>
+    <Labelled id={inputId} label={label} error={error} hint={hint} className={className}>
       <textarea ref={ref} id={inputId} aria-invalid={error ? true : undefined} aria-describedby={error ? `${inputId}-error` : undefined} className={`${control} ${mono ? 'num' : ''}`} {...props} />
-      {hint && !error && <p className="mt-1 text-xs text-ink-soft">{hint}</p>}
-      {error && <FieldError id={`${inputId}-error`}>{error}</FieldError>}
-    </div>
+    </Labelled>
   );
 });
+
+/** The label above a control and its hint or error below. */
+function Labelled({ id, label, error, hint, className, children }: { id: string; label: string; error?: string; hint?: ReactNode; className: string; children: ReactNode }) {
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="mb-1 block text-xs font-semibold text-ink-soft">
+        {label}
+      </label>
+      {children}
+      {hint && !error && <p className="mt-1 text-xs text-ink-soft">{hint}</p>}
+      {error && <FieldError id={`${id}-error`}>{error}</FieldError>}
+    </div>
+  );
+}
