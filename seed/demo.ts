@@ -7,6 +7,7 @@ import type { Role } from '../shared/roles.ts';
 import { DEMO_PASSWORD, makeCompany, makeUser, wholesaler } from './factories.ts';
 import { seedCatalogue } from './catalogue.ts';
 import { seedDemoJobs } from './jobs.ts';
+import { seedDemoWarehouse } from './warehouse.ts';
 import type { PartsIndex } from '../server/search/parts-index.ts';
 import signIns from './demo-sign-ins.json' with { type: 'json' };
 
@@ -24,7 +25,11 @@ const INSTALLERS = [
 /** Seeds once: a second run finds the marker and adds nothing. */
 export async function seedDemo(db: Db, auth: Auth, partsIndex?: PartsIndex) {
   const [done] = await db.select().from(settings).where(eq(settings.key, SEED_KEY));
-  if (done && (done.value as { version?: number }).version === DEMO_VERSION) return { seeded: await seedDemoJobs(db) };
+  if (done && (done.value as { version?: number }).version === DEMO_VERSION) {
+    const jobs = await seedDemoJobs(db);
+    const warehouse = await seedDemoWarehouse(db);
+    return { seeded: jobs || warehouse };
+  }
 
   const home = await wholesaler(db);
   const customers = new Map<string, string>();
@@ -43,6 +48,7 @@ export async function seedDemo(db: Db, auth: Auth, partsIndex?: PartsIndex) {
     await tx.insert(settings).values({ key: SEED_KEY, value }).onConflictDoUpdate({ target: settings.key, set: { value } });
   });
   await seedDemoJobs(db);
+  await seedDemoWarehouse(db);
   await partsIndex?.rebuild(db);
   return { seeded: true };
 }

@@ -22,6 +22,7 @@ import { jobRoutes } from './routes/jobs.ts';
 import { mailRoutes } from './routes/mail.ts';
 import { paymentRoutes, paymentWebhookRoute } from './routes/payments.ts';
 import { portalRoutes } from './routes/portal.ts';
+import { warehouseRoutes } from './routes/warehouse.ts';
 import { createServices, type AppDeps, type AppOptions } from './deps.ts';
 
 export { createServices, type AppDeps, type AppOptions };
@@ -87,6 +88,7 @@ export function createApp(options: AppOptions, deps: AppDeps = createServices(op
   mailRoutes(api, deps);
   paymentRoutes(api, deps);
   portalRoutes(api, deps);
+  warehouseRoutes(api, deps);
   // Routes are fixed once the app is built, so the document is generated once.
   let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {

@@ -18,6 +18,8 @@ import { createMailService, type MailService } from './services/mail.ts';
 import { createPaymentService, type PaymentService } from './services/payments.ts';
 import { createInvoiceService, type InvoiceService } from './services/invoices.ts';
 import { createPortalService, type PortalService } from './services/portal.ts';
+import { createPickingService, type PickingService } from './services/picking.ts';
+import { createLabelsService, type LabelsService } from './services/labels.ts';
 
 /** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
 export interface AppOptions {
@@ -56,6 +58,8 @@ export interface AppDeps extends AppOptions {
   payments: PaymentService;
   invoices: InvoiceService;
   portal: PortalService;
+  picking: PickingService;
+  labels: LabelsService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks, tests and benchmarks. */
@@ -85,5 +89,7 @@ export function createServices(options: AppOptions): AppDeps {
     payments,
     invoices: createInvoiceService({ db: options.db, jobs }),
     portal: createPortalService({ db: options.db, planner }),
+    picking: createPickingService({ db: options.db, now: options.now, mail }),
+    labels: createLabelsService({ db: options.db, planner, publicUrl: options.trustedOrigins[0] ?? 'http://127.0.0.1:3000', now: options.now }),
   };
 }

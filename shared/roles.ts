@@ -51,6 +51,8 @@ export const ABILITIES = {
   'outbox.view': ['admin'],
   'payments.create': ['admin', 'sales', 'installer'],
   'invoices.view': ['admin', 'purchasing', 'sales', 'installer'],
+  'jobs.pick': ['admin', 'warehouse'],
+  'labels.print': ['admin', 'warehouse', 'sales'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Ability = keyof typeof ABILITIES;

@@ -270,6 +270,20 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
     },
 
     /** A saved plan recomputed with today's range and stock; a plan its range no longer allows says why. */
+    /**
+     * A saved plan's system figures as planned today, for a service that has already decided who
+     * may see them (the handover sheet goes to warehouse staff, who do not plan). Null when the
+     * plan can no longer be worked out.
+     */
+    async savedFigures(id: string) {
+      const [row] = await db.select({ name: stackPlans.name, request: stackPlans.request }).from(stackPlans).where(eq(stackPlans.id, id));
+      const request = row ? StackPlanRequestSchema.safeParse(row.request) : null;
+      if (!row || !request?.success) return null;
+      const reader: Actor = { userId: 'system', name: 'Stackyard', email: 'system@stackyard.invalid', role: 'sales', companyId: null };
+      const p = await plan(reader, request.data).catch((e) => (e instanceof ValidationError ? null : Promise.reject(e)));
+      return p && { name: row.name, rangeName: p.rangeName, stacks: p.stacks, modulesPerStack: p.modulesPerStack, usableKwh: p.usableKwh, nominalVoltage: p.nominalVoltage, dvc: p.dvc };
+    },
+
     async replanSaved(actor: Actor, id: string) {
       const saved = await this.findPlan(actor, id);
       const request = StackPlanRequestSchema.safeParse(saved.request);

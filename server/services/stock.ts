@@ -1,6 +1,7 @@
-import { and, asc, desc, eq, gte, ilike, lt, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, ilike, inArray, lt, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client.ts';
-import { bins, companies, defaultBins, jobs, parts, stockLevels, stockLimits, stockMovements, user, warehouses } from '../db/schema/index.ts';
+import { bins, companies, defaultBins, jobs, parts, partSerials, stockLevels, stockLimits, stockMovements, user, warehouses } from '../db/schema/index.ts';
+import { isSerialised } from '@shared/domain/warehouse.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
 import type { AdjustmentInput, BinInput, CountInput, MovementQuery, ReceiptInput, ReturnInput, StockQuery, TransferInput, WarehouseInput } from '@shared/contracts/stock.ts';
@@ -28,6 +29,38 @@ export function createStockService({ db, now = () => new Date() }: StockDeps) {
       .where(sql`${jobs.id} = any(${`{${[...given.keys()].join(',')}}`}::uuid[])`)
       .orderBy(asc(jobs.reference));
     return rows.map((r) => ({ ...r, units: given.get(r.id) ?? 0 }));
+  }
+
+  /**
+   * Serialised parts (modules, controllers, inverters) arrive with one serial per unit; other parts
+   * with none. A serial the part already has (in stock or issued) or one given twice is refused.
+   */
+  async function checkReceiptSerials(input: ReceiptInput, found: Map<string, { id: string; sku: string }>) {
+    const ids = [...found.values()].map((p) => p.id);
+    const categories = new Map((await db.select({ id: parts.id, category: parts.category }).from(parts).where(inArray(parts.id, ids))).map((r) => [r.id, r.category]));
+    const fields: { path: string; message: string }[] = [];
+    const wanted: { partId: string; serial: string; path: string }[] = [];
+    input.lines.forEach((l, i) => {
+      const part = found.get(l.sku)!;
+      const serialised = isSerialised(categories.get(part.id) ?? '');
+      if (serialised && !l.serials) fields.push({ path: `lines.${i}.serials`, message: `${l.sku} is serialised: give the serial of each of the ${l.qty} units.` });
+      if (!serialised && l.serials?.length) fields.push({ path: `lines.${i}.serials`, message: `${l.sku} is not serialised: it is received by quantity only.` });
+      for (const [j, serial] of (l.serials ?? []).entries()) {
+        if (wanted.some((w) => w.partId === part.id && w.serial.toUpperCase() === serial.toUpperCase())) fields.push({ path: `lines.${i}.serials.${j}`, message: `Serial ${serial} is given twice.` });
+        wanted.push({ partId: part.id, serial, path: `lines.${i}.serials.${j}` });
+      }
+    });
+    if (fields.length) throw new ValidationError(fields[0]!.message, { fields });
+    if (wanted.length === 0) return;
+    const known = await db
+      .select({ partId: partSerials.partId, serial: partSerials.serial, state: partSerials.state })
+      .from(partSerials)
+      .where(and(inArray(partSerials.partId, [...new Set(wanted.map((w) => w.partId))]), inArray(sql`upper(${partSerials.serial})`, wanted.map((w) => w.serial.toUpperCase()))));
+    const clashes = wanted.filter((w) => known.some((k) => k.partId === w.partId && k.serial.toUpperCase() === w.serial.toUpperCase()));
+    if (clashes.length) {
+      const state = (w: (typeof clashes)[number]) => known.find((k) => k.partId === w.partId && k.serial.toUpperCase() === w.serial.toUpperCase())!.state;
+      throw new ConflictError(`Serial ${clashes.map((c) => c.serial).join(', ')} is already known: ${state(clashes[0]!) === 'issued' ? 'issued to a job (book it back as a return)' : 'in stock'}.`, { fields: clashes.map((c) => ({ path: c.path, message: `Serial ${c.serial} is already ${state(c) === 'issued' ? 'issued to a job' : 'in stock'}.` })) });
+    }
   }
 
   return {
@@ -89,24 +122,35 @@ export function createStockService({ db, now = () => new Date() }: StockDeps) {
       return { rows, total: count?.n ?? 0 };
     },
 
-    /** Goods in: one movement per line, then waiting backorders of those parts are filled oldest first. */
-    async receive(actor: Actor, input: ReceiptInput) {
+    /**
+     * Goods in: one movement per line, each serialised unit's serial recorded in its bin, then
+     * waiting backorders of those parts are filled oldest first. `purchaseOrder` names the order
+     * the goods arrived against (purchasing's "receive against a PO" passes it).
+     */
+    async receive(actor: Actor, input: ReceiptInput, { purchaseOrder }: { purchaseOrder?: string } = {}) {
       authorize(actor, 'stock.receive');
       const wh = await warehouseByCode(db, input.warehouse);
       const found = await partsBySku(db, input.lines.map((l) => l.sku), 'lines');
-      const lines = await Promise.all(input.lines.map(async (l, i) => ({ partId: found.get(l.sku)!.id, warehouseId: wh.id, bin: await resolveBin(db, found.get(l.sku)!.id, wh.id, l.bin, `lines.${i}.bin`), qty: l.qty })));
+      const lines = await Promise.all(input.lines.map(async (l, i) => ({ partId: found.get(l.sku)!.id, warehouseId: wh.id, bin: await resolveBin(db, found.get(l.sku)!.id, wh.id, l.bin, `lines.${i}.bin`), qty: l.qty, serials: l.serials ?? [] })));
+      await checkReceiptSerials(input, found);
       if (input.reference) {
         const [seen] = await db.select({ id: stockMovements.id }).from(stockMovements).where(and(eq(stockMovements.reference, input.reference), eq(stockMovements.kind, 'receive'))).limit(1);
         if (seen) throw new ConflictError(`Receipt ${input.reference} has already been booked in.`, { fields: [{ path: 'reference', message: 'Already received.' }] });
       }
       const reference = input.reference ?? newReference('RCV', now());
+      const reason = purchaseOrder ? `Against purchase order ${purchaseOrder}` : null;
       const given = await inStockTransaction(db, async (tx) => {
         const locked = await lockLevels(tx, lines);
         for (const l of lines) {
-          await recordMovement(tx, { ...l, kind: 'receive', reference, userId: actor.userId });
+          await recordMovement(tx, { ...l, kind: 'receive', reference, reason, userId: actor.userId });
           locked.get(levelKey(l))!.onHand += l.qty;
+          if (l.serials.length) await tx.insert(partSerials).values(l.serials.map((serial) => ({ partId: l.partId, serial, state: 'in-stock' as const, warehouseId: l.warehouseId, bin: l.bin, receiptReference: reference, receivedAt: now() })));
         }
         return fillBackorders(tx, [...locked.values()], now());
+      }).catch((e: unknown) => {
+        // Two receipts of one serial at once: the unique key refused the second.
+        if (pgCode(e) === '23505') throw new ConflictError('One of these serials was booked in by another receipt just now. Check the serials and try again.');
+        throw e;
       });
       return { reference, movements: lines.length, filledJobs: await describeFilled(given) };
     },

@@ -101,10 +101,20 @@ export const TransferSchema = z
   .refine((t) => t.fromWarehouse !== t.toWarehouse || (t.fromBin ?? '') !== (t.toBin ?? ''), { path: ['toBin'], message: 'Choose a different warehouse or bin to move the stock to.' });
 export type TransferInput = z.infer<typeof TransferSchema>;
 
+/** A serial as printed by the maker and captured by scan: letters, digits, dash, dot, slash (a GS1 (21)-safe subset). */
+export const SerialSchema = text().trim().regex(/^[A-Za-z0-9][A-Za-z0-9./-]{0,19}$/, 'A serial is 1–20 letters, digits, dots, dashes or slashes.');
+
 export const ReceiptSchema = z.strictObject({
   warehouse,
   reference: text().trim().min(1).max(64).optional(),
-  lines: z.array(z.strictObject({ sku, bin: bin.optional(), qty: UnitsSchema })).min(1, 'A receipt has at least one line.').max(500),
+  lines: z
+    .array(
+      z
+        .strictObject({ sku, bin: bin.optional(), qty: UnitsSchema, serials: z.array(SerialSchema).max(1000).optional() })
+        .refine((l) => !l.serials || l.serials.length === l.qty, { path: ['serials'], message: 'Give one serial per unit received.' }),
+    )
+    .min(1, 'A receipt has at least one line.')
+    .max(500),
 });
 export type ReceiptInput = z.infer<typeof ReceiptSchema>;
 

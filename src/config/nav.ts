@@ -20,4 +20,5 @@ export const NAV: NavItem[] = [
   { label: 'Warehouses', href: paths.warehouses.href(), needs: 'warehouses.manage', blurb: 'Warehouses by rank and their bins in pick order.' },
   { label: 'Users', href: paths.users.href(), needs: 'users.manage', blurb: 'Create sign-ins, set roles and companies, reset passwords, deactivate.' },
   { label: 'Outbox', href: paths.outbox.href(), needs: 'outbox.view', blurb: 'Every e-mail Stackyard has written: to whom, about what, and whether it went.' },
+  { label: 'Picking', href: paths.pickQueue.href(), needs: 'jobs.pick', blurb: 'Reserved jobs to pick, oldest first: scan each part and serial, print labels and the handover sheet.' },
 ];

@@ -24,4 +24,9 @@ export const paths = {
   outboxMessage: { path: '/admin/outbox/:id', href: (id: string) => `/admin/outbox/${encodeURIComponent(id)}` },
   resetPassword: { path: '/reset-password', href: () => '/reset-password' },
   forgotPassword: { path: '/forgot-password', href: () => '/forgot-password' },
+  pickQueue: { path: '/picking', href: () => '/picking' },
+  pick: { path: '/jobs/:id/pick', href: (id: string) => `/jobs/${encodeURIComponent(id)}/pick` },
+  pickList: { path: '/jobs/:id/pick-list', href: (id: string) => `/jobs/${encodeURIComponent(id)}/pick-list` },
+  labels: { path: '/jobs/:id/labels', href: (id: string) => `/jobs/${encodeURIComponent(id)}/labels` },
+  handover: { path: '/jobs/:id/handover', href: (id: string) => `/jobs/${encodeURIComponent(id)}/handover` },
 } as const;

@@ -20,6 +20,7 @@ import { catalogueSearches } from '../../server/services/catalogue.ts';
 import { PartListQuerySchema } from '../../shared/contracts/parts.ts';
 import { BENCH_PARTS, generateBenchCatalogue } from './generate.ts';
 import { benchReservations, generateBenchJobs } from './reservations.ts';
+import { benchLabels } from './labels.ts';
 
 const API_PORT = Number(process.env.BENCH_API_PORT ?? 3390);
 const SEARCH_PORT = Number(process.env.BENCH_SEARCH_PORT ?? 7790);
@@ -270,6 +271,7 @@ try {
   if (wanted('bundle')) await run(bundle());
   if (wanted('typing10k')) await run(typing(await indexOnly(10_000), 50));
   if (wanted('reservations')) await run(reservations());
+  if (wanted('labels')) await run(benchLabels());
 } finally {
   await clients.close();
   await search.close();
@@ -286,5 +288,5 @@ const width = Math.max(...lines.map((l) => l.what.length));
 console.log('');
 for (const l of lines) console.log(`${l.what.padEnd(width)}  ${l.figure}   target ${l.target}  ${mark(l.met)}`);
 console.log(`load average (1 min) ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores: other work on this machine slows every figure`);
-console.log('not yet measured (features not built): price-list import, label PDFs');
+console.log('not yet measured (features not built): price-list import');
 console.log('written to bench-results/bench.json');

@@ -1,8 +1,8 @@
 // Accessibility and phone layout in the browser: axe-core on every main page, a planner task
 // by keyboard alone, what axe cannot see (focus, shortcuts, announcements), and 390 px phones.
+import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sql } from 'drizzle-orm';
 import { enqueueMail } from '../../server/services/mail.ts';
 import { axeViolations, signInAs, startBrowserHarness, type BrowserHarness, waitForText } from './support.ts';
 
@@ -142,6 +142,34 @@ describe('axe-core on every main page', () => {
       }
     });
   }
+
+  it('finds nothing on the warehouse pages (pick queue, pick screen with a refusal, pick list, labels, handover), at desk and at phone width', async () => {
+    const ids = Object.fromEntries((await h.t.db.execute<{ reference: string; id: string }>(sql`select reference, id from jobs where reference in ('BG-2041 Fern St', 'SS-0317 Jetty Rd')`)).rows.map((r) => [r.reference, r.id]));
+    const pickJob = ids['BG-2041 Fern St']!;
+    const readyJob = ids['SS-0317 Jetty Rd']!;
+    for (const size of [undefined, { width: 390, height: 844 }]) {
+      const where = size ? 'phone ' : '';
+      const page = await h.newPage(size);
+      await signInAs(page, 'warehouse@stackyard.test');
+      for (const [state, url, heading] of [
+        ['pick queue', '/picking', /^Pick queue$/],
+        ['pick screen', `/jobs/${pickJob}/pick`, /^Pick BG-2041 Fern St$/],
+        ['pick list', `/jobs/${pickJob}/pick-list`, /^Pick list BG-2041 Fern St$/],
+        ['labels', `/jobs/${readyJob}/labels`, /^Labels$/],
+        ['handover sheet', `/jobs/${readyJob}/handover`, /^Handover SS-0317 Jetty Rd$/],
+      ] as [string, string, RegExp][]) {
+        await settled(page, url, heading);
+        await expectNoAxeViolations(page, `${where}${state}`);
+        await expectWithinWidth(page, `${where}${state}`);
+      }
+      // A refused scan's loud answer passes too.
+      await settled(page, `/jobs/${pickJob}/pick`, /^Pick BG-2041 Fern St$/);
+      await page.keyboard.type('NOT-ON-THIS-JOB\n');
+      await waitForText(page.getByTestId('scan-feedback'), /Refused/);
+      await expectNoAxeViolations(page, `${where}pick screen, refused scan`);
+      await expectWithinWidth(page, `${where}pick screen, refused scan`);
+    }
+  });
 
   it('finds nothing at phone width, with the menu and the filters open', async () => {
     const page = await h.newPage({ width: 390, height: 844 });

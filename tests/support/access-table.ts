@@ -17,7 +17,10 @@ export type FixtureKey =
   | 'warehouse' // a demo warehouse
   | 'bin' // a bin of `warehouse`
   | 'mail' // a message in the outbox
-  | 'orderedJob'; // an ordered job of company A that no route cancels (it has a tax invoice)
+  | 'orderedJob' // an ordered job of company A that no route cancels (it has a tax invoice)
+  | 'pickJob' // a job of company A with its one line reserved (ready to pick and label)
+  | 'pickSku' // the SKU on `pickJob`
+  | 'label'; // a label number of `pickJob`
 export type Fixtures = Record<FixtureKey, string>;
 
 export interface OperationAccess {
@@ -43,6 +46,7 @@ const admins: readonly Role[] = ['admin'];
 const jobMakers: readonly Role[] = ['admin', 'sales', 'installer'];
 const desk: readonly Role[] = ['admin', 'sales'];
 const storemen: readonly Role[] = ['admin', 'warehouse'];
+const labellers: readonly Role[] = ['admin', 'warehouse', 'sales'];
 
 const plan = (f: Fixtures) => ({ rangeId: f.range, modules: 3 });
 
@@ -127,6 +131,18 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'POST /api/stack-plans/alternatives': { allow: planners, body: plan },
   'POST /api/jobs/{id}/reorder': { allow: jobMakers, companyOwned: true, params: { id: 'orderedJob' } },
   'GET /api/jobs/{id}/invoice.pdf': { allow: ['admin', 'purchasing', 'sales', 'installer'], companyOwned: true, params: { id: 'orderedJob' } },
+  // warehouse: picking (staff see pick lists; admin and warehouse pick), labels, handover sheet
+  'GET /api/pick-queue': { allow: staff },
+  'GET /api/jobs/{id}/pick': { allow: staff, companyOwned: true, params: { id: 'pickJob' } },
+  'POST /api/jobs/{id}/pick/scans': { allow: storemen, companyOwned: true, params: { id: 'pickJob' }, body: (f) => ({ code: f.pickSku, scanId: `matrix-${Math.random().toString(36).slice(2, 12)}` }) },
+  'POST /api/jobs/{id}/pick/pause': { allow: storemen, companyOwned: true, params: { id: 'pickJob' } },
+  'POST /api/jobs/{id}/pick/resume': { allow: storemen, companyOwned: true, params: { id: 'pickJob' } },
+  'POST /api/jobs/{id}/pick/complete': { allow: storemen, companyOwned: true, params: { id: 'pickJob' } },
+  'GET /api/jobs/{id}/labels': { allow: labellers, companyOwned: true, params: { id: 'pickJob' } },
+  'GET /api/jobs/{id}/labels/{n}.png': { allow: labellers, companyOwned: true, params: { id: 'pickJob', n: 'label' } },
+  'GET /api/jobs/{id}/labels.pdf': { allow: labellers, companyOwned: true, params: { id: 'pickJob' } },
+  'GET /api/jobs/{id}/handover': { allow: everyone, companyOwned: true, params: { id: 'pickJob' } },
+  'GET /api/jobs/{id}/handover.pdf': { allow: everyone, companyOwned: true, params: { id: 'pickJob' } },
 };
 
 export type Caller = 'anonymous' | Role | 'other-installer';

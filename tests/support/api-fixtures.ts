@@ -56,8 +56,14 @@ export async function arrangeFixtures(t: TestApp): Promise<{ fixtures: Fixtures;
   const invoiced = await agents.installer.post('/api/jobs').send({ reference: 'Own company ordered job', lines: [{ sku, qty: 1 }] }).expect(201);
   await agents.installer.post(`/api/jobs/${invoiced.body.data.id}/order`).expect(200);
   const mail = await enqueueMail(t.db, { event: 'password-reset', to: 'fixture@example.test', data: { name: 'Fixture', url: 'http://127.0.0.1/reset' } });
+  // A job ready to pick: one plentiful part, reserved by the trade desk.
+  const { rows: stocked } = await t.db.execute<{ sku: string }>(sql`select p.sku from parts p join stock_levels l on l.part_id = p.id where p.archived_at is null group by p.sku order by sum(l.on_hand - l.reserved) desc, p.sku limit 1`);
+  const pickSku = stocked[0]!.sku;
+  const pickJob = (await agents.admin.post('/api/jobs').send({ reference: 'Matrix pick job', companyId: (agents.installer as unknown as { companyId: string }).companyId, lines: [{ sku: pickSku, qty: 1 }] }).expect(201)).body.data.id as string;
+  await agents.admin.post(`/api/jobs/${pickJob}/order`).expect(200);
+  await agents.admin.post(`/api/jobs/${pickJob}/reserve`).expect(200);
   return {
-    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin, mail, orderedJob: invoiced.body.data.id },
+    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin, mail, orderedJob: invoiced.body.data.id, pickJob, pickSku, label: '1' },
     agents,
   };
 }

@@ -6,3 +6,4 @@ export * from './plans.ts';
 export * from './jobs.ts';
 export * from './mail.ts';
 export * from './payments.ts';
+export * from './warehouse.ts';

@@ -10,6 +10,8 @@ import { JobLines } from '@/features/jobs/components/job-lines.tsx';
 import { JobStock } from '@/features/jobs/components/job-stock.tsx';
 import { JobHistory } from '@/features/jobs/components/job-history.tsx';
 import { JobPaperwork } from '@/features/jobs/components/job-paperwork.tsx';
+import { hasAbility, useMe } from '@/features/auth/api/get-me.ts';
+import { JobPageLinks } from '@/components/ui/job-pages.tsx';
 
 export function JobRoute() {
   const { id = '' } = useParams();
@@ -17,6 +19,7 @@ export function JobRoute() {
   const justPaid = search.get('paid') === '1';
   // Back from the card checkout: the webhook confirms the payment moments later, so look again until it has.
   const job = useJob(id, justPaid ? (j) => j.payment !== null : undefined);
+  const { data: me } = useMe();
   if (job.error) {
     return (
       <Page title="Job">
@@ -48,9 +51,12 @@ export function JobRoute() {
         </span>
       }
       actions={
-        <Link to={paths.jobs.href()} className="no-print inline-flex items-center rounded-md border border-line bg-card px-3 py-1.5 text-sm font-medium hover:border-ink-soft">
-          All jobs
-        </Link>
+        <>
+          <JobPageLinks id={j.id} here="job" show={warehousePages(j.status, me)} />
+          <Link to={paths.jobs.href()} className="no-print inline-flex items-center rounded-md border border-line bg-card px-3 py-1.5 text-sm font-medium hover:border-ink-soft">
+            All jobs
+          </Link>
+        </>
       }
     >
       <div className="space-y-4">
@@ -105,4 +111,14 @@ export function JobRoute() {
       </div>
     </Page>
   );
+}
+
+/** The warehouse pages this job has now, for this user: picking while reserved, labels once held, the handover sheet once picked. */
+function warehousePages(status: string, me: Parameters<typeof hasAbility>[0]) {
+  const pages: string[] = [];
+  if (hasAbility(me, 'jobs.pick') && ['reserved', 'picking'].includes(status)) pages.push('pick');
+  if (hasAbility(me, 'stock.view') && ['reserved', 'picking'].includes(status)) pages.push('pickList');
+  if (hasAbility(me, 'labels.print') && ['reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected'].includes(status)) pages.push('labels');
+  if (['ready', 'dispatched', 'collected', 'closed'].includes(status)) pages.push('handover');
+  return pages;
 }

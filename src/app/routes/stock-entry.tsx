@@ -3,11 +3,13 @@ import { Page } from '@/components/ui/page.tsx';
 import { hasAbility, useMe } from '@/features/auth/api/get-me.ts';
 import { useWarehouses } from '@/features/stock/api/get-warehouses.ts';
 import { AdjustmentForm, ReceiptForm, TransferForm } from '@/features/stock/components/ledger-forms.tsx';
+import { BinCountForm } from '@/features/stock/components/bin-count.tsx';
 
 const TABS = [
   { id: 'receive', label: 'Receive goods', needs: 'stock.receive' },
   { id: 'adjust', label: 'Adjust', needs: 'stock.adjust' },
   { id: 'transfer', label: 'Transfer', needs: 'stock.transfer' },
+  { id: 'count', label: 'Count a bin', needs: 'stock.adjust' },
 ] as const;
 
 /** Goods in, adjustments and transfers: each one a movement in the ledger. */
@@ -34,6 +36,7 @@ export function StockEntryRoute() {
             {current?.id === 'receive' && <ReceiptForm warehouses={warehouses} />}
             {current?.id === 'adjust' && <AdjustmentForm warehouses={warehouses} />}
             {current?.id === 'transfer' && <TransferForm warehouses={warehouses} />}
+            {current?.id === 'count' && <BinCountForm warehouses={warehouses} />}
           </div>
         </>
       )}

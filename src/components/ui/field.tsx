@@ -1,4 +1,4 @@
-import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
 const control =
   'w-full rounded-md border border-line bg-card px-2.5 py-1.5 text-sm text-ink placeholder:text-ink-soft/60 aria-[invalid=true]:border-danger';
@@ -83,3 +83,27 @@ export const CustomerSelect = forwardRef<HTMLSelectElement, { customers: readonl
     </SelectField>
   );
 });
+/** A labelled multi-line box (a scanner's Enter starts a new line instead of sending the form). */
+export const TextAreaField = forwardRef<HTMLTextAreaElement, FieldProps & TextareaHTMLAttributes<HTMLTextAreaElement>>(function TextAreaField({ label, error, hint, mono, className = '', id, ...props }, ref) {
+  const autoId = useId();
+  const inputId = id ?? autoId;
+  return (
+    <Labelled id={inputId} label={label} error={error} hint={hint} className={className}>
+      <textarea ref={ref} id={inputId} aria-invalid={error ? true : undefined} aria-describedby={error ? `${inputId}-error` : undefined} className={`${control} ${mono ? 'num' : ''}`} {...props} />
+    </Labelled>
+  );
+});
+
+/** The label above a control and its hint or error below. */
+function Labelled({ id, label, error, hint, className, children }: { id: string; label: string; error?: string; hint?: ReactNode; className: string; children: ReactNode }) {
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="mb-1 block text-xs font-semibold text-ink-soft">
+        {label}
+      </label>
+      {children}
+      {hint && !error && <p className="mt-1 text-xs text-ink-soft">{hint}</p>}
+      {error && <FieldError id={`${id}-error`}>{error}</FieldError>}
+    </div>
+  );
+}

@@ -4,7 +4,7 @@ import { useFieldArray, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { AdjustmentSchema, ReceiptSchema, TransferSchema, type AdjustmentInput, type LedgerResult, type ReceiptInput, type TransferInput } from '@shared/contracts/stock.ts';
 import { Button } from '@/components/ui/button.tsx';
-import { SelectField, TextField } from '@/components/ui/field.tsx';
+import { SelectField, TextAreaField, TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { paths } from '@/config/paths.ts';
 import { applyServerErrors } from '@/lib/form-errors.ts';
@@ -43,6 +43,16 @@ function Outcome({ result }: { result: LedgerResult }) {
   );
 }
 
+/** Serials as scanned or typed: one a line (or separated by spaces or commas); none → no serials. */
+const splitSerials = (text: string) => {
+  const serials = text.split(/[\s,]+/).filter(Boolean);
+  return serials.length ? serials : undefined;
+};
+const serialError = (e: unknown) => {
+  const x = e as ({ message?: string } & Record<number, { message?: string } | undefined>) | undefined;
+  return x?.message ?? Object.values(x ?? {}).find((v): v is { message: string } => typeof (v as { message?: unknown })?.message === 'string')?.message;
+};
+
 export function ReceiptForm({ warehouses }: { warehouses: Warehouses }) {
   const record = useRecordMovement();
   const [result, setResult] = useState<LedgerResult | null>(null);
@@ -76,6 +86,15 @@ export function ReceiptForm({ warehouses }: { warehouses: Warehouses }) {
             <TextField label="SKU" mono className="w-44" error={err.lines?.[i]?.sku?.message} {...form.register(`lines.${i}.sku`)} />
             <TextField label="Bin" mono className="w-28" hint="Blank: default bin" error={err.lines?.[i]?.bin?.message} {...form.register(`lines.${i}.bin`, { setValueAs: (v: string) => v || undefined })} />
             <TextField label="Qty" type="number" min={1} step={1} mono className="w-24" error={err.lines?.[i]?.qty?.message} {...form.register(`lines.${i}.qty`, { valueAsNumber: true })} />
+            <TextAreaField
+              label="Serials"
+              mono
+              rows={2}
+              className="w-full sm:w-64"
+              hint="Modules, controllers, inverters: one per unit, scanned or typed, a line each."
+              error={serialError(err.lines?.[i]?.serials)}
+              {...form.register(`lines.${i}.serials`, { setValueAs: (v: unknown) => (typeof v === 'string' ? splitSerials(v) : v) })}
+            />
             {lines.fields.length > 1 && (
               <Button variant="ghost" className="mt-5" onClick={() => lines.remove(i)} aria-label={`Remove line ${i + 1}`}>
                 Remove
