@@ -4,3 +4,4 @@ export * from './catalogue.ts';
 export * from './stock.ts';
 export * from './plans.ts';
 export * from './jobs.ts';
+export * from './purchasing.ts';
