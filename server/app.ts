@@ -19,6 +19,7 @@ import { partRoutes } from './routes/parts.ts';
 import { stackPlanRoutes } from './routes/stack-plans.ts';
 import { stockRoutes } from './routes/stock.ts';
 import { jobRoutes } from './routes/jobs.ts';
+import { purchasingRoutes } from './routes/purchasing.ts';
 import { createServices, type AppDeps, type AppOptions } from './deps.ts';
 
 export { createServices, type AppDeps, type AppOptions };
@@ -79,6 +80,7 @@ export function createApp(options: AppOptions, deps: AppDeps = createServices(op
   stackPlanRoutes(api, deps);
   stockRoutes(api, deps);
   jobRoutes(api, deps);
+  purchasingRoutes(api, deps);
   // Routes are fixed once the app is built, so the document is generated once.
   let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {

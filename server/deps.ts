@@ -13,6 +13,10 @@ import { createPlannerService, RANGE_CACHE_MS, type LoadedRange, type PlannerSer
 import { createTtlCache } from './lib/ttl-cache.ts';
 import { createStockService, type StockService } from './services/stock.ts';
 import { createJobService, type JobService } from './services/jobs.ts';
+import { createSupplierService, type SupplierService } from './services/suppliers.ts';
+import { createPriceListService, type PriceListService } from './services/price-lists.ts';
+import { createPricingService, type PricingService } from './services/pricing.ts';
+import { createPurchaseOrderService, onOrderFor, type PurchaseOrderService } from './services/purchase-orders.ts';
 
 /** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
 export interface AppOptions {
@@ -43,6 +47,10 @@ export interface AppDeps extends AppOptions {
   planner: PlannerService;
   stock: StockService;
   jobs: JobService;
+  suppliers: SupplierService;
+  priceLists: PriceListService;
+  pricing: PricingService;
+  purchaseOrders: PurchaseOrderService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks, tests and benchmarks. */
@@ -50,6 +58,7 @@ export function createServices(options: AppOptions): AppDeps {
   const partsIndex = createPartsIndex(options.search);
   const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
   const sessionCache = createSessionCache();
+  const purchaseOrders = createPurchaseOrderService({ db: options.db, now: options.now });
   const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (tx, ids) => partsIndex.sync(tx, [...new Set(ids)]) });
   return {
     ...options,
@@ -60,7 +69,11 @@ export function createServices(options: AppOptions): AppDeps {
     catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
     media: createMediaService({ db: options.db, files: options.files, partsIndex }),
     planner,
-    stock: createStockService({ db: options.db, now: options.now }),
+    stock: createStockService({ db: options.db, now: options.now, onPurchaseOrderReceipt: purchaseOrders.bookReceipt, onOrder: (db) => onOrderFor(db) }),
     jobs: createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays }),
+    suppliers: createSupplierService({ db: options.db, partsIndex }),
+    priceLists: createPriceListService({ db: options.db, partsIndex }),
+    pricing: createPricingService({ db: options.db, partsIndex }),
+    purchaseOrders,
   };
 }

@@ -48,6 +48,8 @@ export const ABILITIES = {
   'stock.receive': ['admin', 'warehouse'],
   'stock.limits': ['admin', 'purchasing', 'warehouse'],
   'warehouses.manage': ['admin'],
+  'purchasing.manage': ['admin', 'purchasing'],
+  'purchase-orders.view': ['admin', 'purchasing', 'warehouse'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Ability = keyof typeof ABILITIES;

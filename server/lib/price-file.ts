@@ -158,7 +158,8 @@ async function readXlsx(bytes: Buffer, wanted: string | null) {
   }
   const sheets = wb.worksheets.map((w) => w.name);
   if (sheets.length === 0) throw refuse('The workbook has no sheets.', 'empty_file');
-  const ws = wanted ? wb.getWorksheet(wanted) : (wb.worksheets.find((w) => w.actualRowCount > 1) ?? wb.worksheets[0]);
+  // Without a choice, the sheet with the most rows: notes and cover sheets are short.
+  const ws = wanted ? wb.getWorksheet(wanted) : wb.worksheets.reduce((a, b) => (b.actualRowCount > a.actualRowCount ? b : a));
   if (!ws) throw new ValidationError(`The workbook has no sheet "${wanted}".`, { fields: [{ path: 'sheet', message: `Choose one of: ${sheets.join(', ')}.` }] });
   if (ws.rowCount > PRICE_FILE_MAX_ROWS + 1) throw refuse(`Sheet "${ws.name}" has ${ws.rowCount.toLocaleString('en-AU')} rows; a price list can have at most ${PRICE_FILE_MAX_ROWS.toLocaleString('en-AU')}.`, 'too_many_rows');
   const raw: Cell[][] = [];

@@ -104,6 +104,8 @@ export type TransferInput = z.infer<typeof TransferSchema>;
 export const ReceiptSchema = z.strictObject({
   warehouse,
   reference: text().trim().min(1).max(64).optional(),
+  /** The purchase order these goods arrive against (its number); its lines count them as received. */
+  purchaseOrder: text().trim().min(1).max(64).optional(),
   lines: z.array(z.strictObject({ sku, bin: bin.optional(), qty: UnitsSchema })).min(1, 'A receipt has at least one line.').max(500),
 });
 export type ReceiptInput = z.infer<typeof ReceiptSchema>;

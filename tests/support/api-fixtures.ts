@@ -3,6 +3,7 @@
 import sharp from 'sharp';
 import supertest from 'supertest';
 import { sql } from 'drizzle-orm';
+import { readFile } from 'node:fs/promises';
 import { seedDemo } from '../../seed/demo.ts';
 import { makeUser } from '../../seed/factories.ts';
 import { ROLES } from '../../shared/roles.ts';
@@ -52,10 +53,25 @@ export async function arrangeFixtures(t: TestApp): Promise<{ fixtures: Fixtures;
   const job = await agents.installer.post('/api/jobs').send({ reference: 'Own company job', lines: [{ sku, qty: 1 }] }).expect(201);
   const { rows: binRows } = await t.db.execute<{ warehouse: string; bin: string }>(sql`select warehouse_id as warehouse, id as bin from bins order by code limit 1`);
   const { warehouse, bin } = binRows[0]!;
+  const purchasing = await purchasingFixtures(t, agents);
   return {
-    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin },
+    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin, ...purchasing },
     agents,
   };
+}
+
+/** A supplier, an uploaded price list, a tier, two draft purchase orders and a sell-price recompute. */
+async function purchasingFixtures(t: TestApp, agents: Agents) {
+  const { rows } = await t.db.execute<{ supplier: string; sku: string; tier: string }>(sql`
+    select s.id as supplier, p.sku, (select id from customer_tiers order by code limit 1) as tier
+    from suppliers s join part_supplier_skus ps on ps.supplier_id = s.id join parts p on p.id = ps.part_id
+    where s.code = 'KESTREL' and ps.cost_cents is not null order by p.sku limit 1`);
+  const { supplier, sku, tier } = rows[0]!;
+  const file = await readFile(new URL('../../seed/price-lists/marram-wholesale-2027-03.csv', import.meta.url));
+  const priceList = (await agents.purchasing.post('/api/price-lists').field('supplierId', supplier).attach('file', file, 'prices.csv').expect(201)).body.data.id as string;
+  const order = async () => (await agents.purchasing.post('/api/purchase-orders').send({ supplier: 'KESTREL', warehouse: 'WST', lines: [{ sku, qty: 2 }] }).expect(201)).body.data.id as string;
+  const recompute = (await agents.purchasing.post('/api/pricing/recompute').expect(200)).body.data.id as string;
+  return { supplier, priceList, tier, purchaseOrder: await order(), purchaseOrderToDelete: await order(), recompute };
 }
 
 /** The path with each {param} filled (already encoded by the caller when it wants raw bytes). */

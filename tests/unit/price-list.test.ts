@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { deflateRawSync } from 'node:zlib';
 import ExcelJS from 'exceljs';
 import { changePct, orderQuantity, parseLocaleNumber, parseRow, suggestMapping, mappingProblems, toCostCents, unitCostAt, type RowContext } from '../../shared/domain/price-list.ts';
 import { checkZipSize, readPriceFile, sniffPriceFile } from '../../server/lib/price-file.ts';
 import { AppError } from '../../server/errors.ts';
+import { zipOf } from '../support/zip.ts';
 import type { NumberLocale } from '../../shared/contracts/purchasing.ts';
 
 const csv = (s: string) => Buffer.from(s, 'utf8');
@@ -64,7 +64,7 @@ describe('XLSX through exceljs', () => {
     const bytes = Buffer.from(await wb.xlsx.writeBuffer());
     const first = await readPriceFile(bytes);
     expect(first.sheets).toEqual(['Notes', 'Prices']);
-    expect(first.sheet).toBe('Prices'); // the first sheet with rows below a header
+    expect(first.sheet).toBe('Prices'); // the sheet with the most rows
     const f = await readPriceFile(bytes, { sheet: 'Prices' });
     expect(f.columns).toEqual(['Code', 'Cost']);
     expect(f.rows.map((r) => r.cells)).toEqual([['M-1', 1234.5], ['M-2', 6]]); // a formula cell gives its cached result (ECMA-376 §18.3.1.40 <v>)
@@ -226,42 +226,3 @@ describe('random input never breaks the reader', () => {
     );
   });
 });
-
-/** A minimal ZIP (deflate) for the bomb tests; `lie` writes a small uncompressed size in the directory. */
-function zipOf(files: { name: string; data: Buffer }[], { lie = false } = {}): Buffer {
-  const locals: Buffer[] = [];
-  const central: Buffer[] = [];
-  let offset = 0;
-  for (const f of files) {
-    const comp = deflateRawSync(f.data, { level: 9 });
-    const name = Buffer.from(f.name);
-    const size = lie ? 100 : f.data.length;
-    const lh = Buffer.alloc(30);
-    lh.writeUInt32LE(0x04034b50, 0);
-    lh.writeUInt16LE(20, 4);
-    lh.writeUInt16LE(8, 8);
-    lh.writeUInt32LE(comp.length, 18);
-    lh.writeUInt32LE(size, 22);
-    lh.writeUInt16LE(name.length, 26);
-    const ch = Buffer.alloc(46);
-    ch.writeUInt32LE(0x02014b50, 0);
-    ch.writeUInt16LE(20, 4);
-    ch.writeUInt16LE(20, 6);
-    ch.writeUInt16LE(8, 10);
-    ch.writeUInt32LE(comp.length, 20);
-    ch.writeUInt32LE(size, 24);
-    ch.writeUInt16LE(name.length, 28);
-    ch.writeUInt32LE(offset, 42);
-    locals.push(lh, name, comp);
-    central.push(ch, name);
-    offset += 30 + name.length + comp.length;
-  }
-  const cd = Buffer.concat(central);
-  const end = Buffer.alloc(22);
-  end.writeUInt32LE(0x06054b50, 0);
-  end.writeUInt16LE(files.length, 8);
-  end.writeUInt16LE(files.length, 10);
-  end.writeUInt32LE(cd.length, 12);
-  end.writeUInt32LE(offset, 16);
-  return Buffer.concat([...locals, cd, end]);
-}
