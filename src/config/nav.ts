@@ -17,6 +17,8 @@ export const NAV: NavItem[] = [
   { label: 'Saved plans', href: paths.plans.href(), needs: 'plans.create', blurb: 'Draft plans for your sites, ready to reopen, print or export.' },
   { label: 'Jobs', href: paths.jobs.href(), needs: 'jobs.view', blurb: 'Orders for each site: reserved, backordered and where every unit is held.' },
   { label: 'Stock', href: paths.stock.href(), needs: 'stock.view', blurb: 'Levels per warehouse and bin, the movement ledger, receipts, adjustments and transfers.' },
+  { label: 'Purchasing', href: paths.priceLists.href(), needs: 'purchasing.manage', blurb: 'Supplier price lists, costs and sell prices, reorder suggestions.' },
+  { label: 'Purchase orders', href: paths.purchaseOrders.href(), needs: 'purchase-orders.view', blurb: 'Orders to suppliers, from draft to received.' },
   { label: 'Warehouses', href: paths.warehouses.href(), needs: 'warehouses.manage', blurb: 'Warehouses by rank and their bins in pick order.' },
   { label: 'Users', href: paths.users.href(), needs: 'users.manage', blurb: 'Create sign-ins, set roles and companies, reset passwords, deactivate.' },
 ];

@@ -20,4 +20,12 @@ export const paths = {
   stockLow: { path: '/stock/low', href: () => '/stock/low' },
   warehouses: { path: '/admin/warehouses', href: () => '/admin/warehouses' },
   rangeEdit: { path: '/ranges/:code/edit', href: (code: string) => `/ranges/${encodeURIComponent(code)}/edit` },
+  priceLists: { path: '/purchasing', href: () => '/purchasing' },
+  priceList: { path: '/purchasing/imports/:id', href: (id: string) => `/purchasing/imports/${encodeURIComponent(id)}` },
+  suppliers: { path: '/purchasing/suppliers', href: () => '/purchasing/suppliers' },
+  supplier: { path: '/purchasing/suppliers/:id', href: (id: string) => `/purchasing/suppliers/${encodeURIComponent(id)}` },
+  pricing: { path: '/purchasing/pricing', href: () => '/purchasing/pricing' },
+  reorder: { path: '/purchasing/reorder', href: () => '/purchasing/reorder' },
+  purchaseOrders: { path: '/purchasing/orders', href: () => '/purchasing/orders' },
+  purchaseOrder: { path: '/purchasing/orders/:id', href: (id: string) => `/purchasing/orders/${encodeURIComponent(id)}` },
 } as const;
