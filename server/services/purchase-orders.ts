@@ -3,7 +3,7 @@ import type { Db, Tx } from '../db/client.ts';
 import { partSupplierSkus, parts, purchaseOrderLines, purchaseOrders, suppliers, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
-import { newReference, partsBySku, warehouseByCode } from './ledger.ts';
+import { newReference, partsBySku, resolveBin, warehouseByCode } from './ledger.ts';
 import { orderQuantity, unitCostAt } from '@shared/domain/price-list.ts';
 import type { PoInput, PoReceiptInput, PoStatus, PriceBreak, Suggestion } from '@shared/contracts/purchasing.ts';
 
@@ -87,7 +87,7 @@ export function createPurchaseOrderService({ db, now = () => new Date(), onPurch
       .where(eq(purchaseOrders.id, id));
     if (!po) throw new NotFoundError('That purchase order');
     const lines = await db
-      .select({ id: purchaseOrderLines.id, lineNo: purchaseOrderLines.lineNo, sku: parts.sku, name: parts.name, supplierSku: purchaseOrderLines.supplierSku, qty: purchaseOrderLines.qty, received: purchaseOrderLines.received, unitCostCents: purchaseOrderLines.unitCostCents })
+      .select({ id: purchaseOrderLines.id, lineNo: purchaseOrderLines.lineNo, partId: purchaseOrderLines.partId, sku: parts.sku, name: parts.name, supplierSku: purchaseOrderLines.supplierSku, qty: purchaseOrderLines.qty, received: purchaseOrderLines.received, unitCostCents: purchaseOrderLines.unitCostCents })
       .from(purchaseOrderLines)
       .innerJoin(parts, eq(parts.id, purchaseOrderLines.partId))
       .where(eq(purchaseOrderLines.purchaseOrderId, id))
@@ -230,11 +230,21 @@ export function createPurchaseOrderService({ db, now = () => new Date(), onPurch
       authorize(actor, 'stock.receive');
       const po = await detail(id);
       if (!['sent', 'part-received'].includes(po.status)) throw new ConflictError(`Purchase order ${po.number} is ${po.status}; only sent orders are received.`);
-      const lines = input.lines.map((l, i) => {
-        const line = po.lines.find((x) => x.id === l.lineId);
-        if (!line) throw new ValidationError(`Line ${i + 1} is not on purchase order ${po.number}.`, { fields: [{ path: `lines.${i}.lineId`, message: 'Not on this order.' }] });
-        return { sku: line.sku, qty: l.qty, bin: l.bin };
-      });
+      const [wh] = await db.select({ id: warehouses.id }).from(warehouses).where(eq(warehouses.id, po.warehouseId));
+      const lines = await Promise.all(
+        input.lines.map(async (l, i) => {
+          const line = po.lines.find((x) => x.id === l.lineId);
+          if (!line) throw new ValidationError(`Line ${i + 1} is not on purchase order ${po.number}.`, { fields: [{ path: `lines.${i}.lineId`, message: 'Not on this order.' }] });
+          let bin = l.bin;
+          if (!bin) {
+            bin = await resolveBin(db, line.partId, wh!.id, undefined, `lines.${i}.bin`).catch(() => {
+              if (input.fallbackBin) return input.fallbackBin;
+              throw new ValidationError(`${line.sku} has no bin in ${po.warehouse} yet: name one for it, or a receiving bin.`, { fields: [{ path: `lines.${i}.bin`, message: 'Name the bin.' }] });
+            });
+          }
+          return { sku: line.sku, qty: l.qty, bin };
+        }),
+      );
       return { warehouse: po.warehouse, reference: input.reference, purchaseOrder: po.number, lines };
     },
 

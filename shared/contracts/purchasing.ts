@@ -282,6 +282,8 @@ export const PoInputSchema = z.strictObject({
 export type PoInput = z.infer<typeof PoInputSchema>;
 export const PoReceiptSchema = z.strictObject({
   reference: text().trim().min(1).max(64).optional(),
+  /** Where lines go that name no bin and whose part has no bin in the warehouse yet (a receiving bay). */
+  fallbackBin: text().trim().min(1).max(32).toUpperCase().optional(),
   lines: z.array(z.strictObject({ lineId: z.uuid(), qty: z.number().int().min(1).max(1_000_000), bin: text().trim().min(1).max(32).toUpperCase().optional() })).min(1).max(500),
 });
 export type PoReceiptInput = z.infer<typeof PoReceiptSchema>;

@@ -134,7 +134,7 @@ function PreviewStep({ pl }: { pl: PriceList }) {
       {(counts.errors ?? 0) > 0 && (
         <div className="mb-4">
           <Notice tone="danger" title={`${formatNumber(counts.errors ?? 0)} rows have problems and will be left out`}>
-            <ul className="mt-1 max-h-48 list-none space-y-0.5 overflow-y-auto">
+            <ul tabIndex={0} aria-label="Rows with problems" className="mt-1 max-h-48 list-none space-y-0.5 overflow-y-auto">
               {(errors.data?.errors ?? []).map((e, i) => (
                 <li key={i}>
                   Row <span className="num">{e.row}</span>
@@ -171,7 +171,7 @@ function useChangeColumns(pl: PriceList) {
   return useMemo<ColumnDef<PreviewChange>[]>(
     () => [
       { id: 'row', header: 'Row', meta: { align: 'right', className: PHONE_HIDDEN }, cell: (c) => <span className="num">{c.row.original.row ?? '—'}</span> },
-      { id: 'supplierSku', header: 'Supplier SKU', cell: (c) => (
+      { id: 'supplierSku', accessorKey: 'supplierSku', header: 'Supplier SKU', cell: (c) => (
         <>
           <span className="num font-semibold break-all">{c.row.original.supplierSku}</span>
           <span className="block text-xs text-ink-soft">{c.row.original.description}</span>

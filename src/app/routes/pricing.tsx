@@ -107,7 +107,7 @@ function MovedCard() {
               {r.moved > 0 && <Button className="px-2 py-0.5 text-xs" onClick={() => void download(`/pricing/recomputes/${encodeURIComponent(r.id)}/moves.csv`)}>CSV</Button>}
             </div>
             {r.moves.length > 0 && (
-              <div className="max-h-64 overflow-y-auto">
+              <div tabIndex={0} role="region" aria-label={`Prices moved: ${r.reason}`} className="max-h-64 overflow-y-auto">
                 <table className="w-full text-sm">
                   <thead>
                     <tr className="text-left text-xs text-ink-soft">

@@ -17,6 +17,7 @@ export function PurchaseOrderRoute() {
   const { data: me } = useMe();
   const order = useOrder(id);
   const action = useOrderAction();
+  const receive = useReceiveOrder();
   const po = order.data;
   const buyer = hasAbility(me, 'purchasing.manage');
   const receiver = hasAbility(me, 'stock.receive');
@@ -56,31 +57,40 @@ export function PurchaseOrderRoute() {
             </ul>
           </Card>
           {po.totals && <MoneyTotals totals={{ subtotalCents: po.totals.exCents, gstCents: po.totals.gstCents, totalCents: po.totals.incCents, unpricedLines: 0 }} basis="Costs ex GST; GST on the order total" />}
-          {receiver && ['sent', 'part-received'].includes(po.status) && <ReceiveForm po={po} />}
+          {receive.data && (
+            <Notice tone="good" title={`Booked in as ${receive.data.reference}`}>
+              {receive.data.filledJobs.length ? `Backorders filled: ${receive.data.filledJobs.map((j) => `${j.reference} (${j.units})`).join(', ')}.` : 'No backorders were waiting for these parts.'}
+            </Notice>
+          )}
+          {receiver && ['sent', 'part-received'].includes(po.status) && <ReceiveForm po={po} receive={receive} />}
         </div>
       )}
     </Page>
   );
 }
 
-function ReceiveForm({ po }: { po: PurchaseOrder }) {
-  const receive = useReceiveOrder();
+function ReceiveForm({ po, receive }: { po: PurchaseOrder; receive: ReturnType<typeof useReceiveOrder> }) {
   const open = po.lines.filter((l) => l.received < l.qty);
   const [qty, setQty] = useState<Record<string, string>>(() => Object.fromEntries(open.map((l) => [l.id, String(l.qty - l.received)])));
   const [reference, setReference] = useState('');
+  const [bins, setBins] = useState<Record<string, string>>({});
+  const [fallbackBin, setFallbackBin] = useState('');
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    const lines = open.map((l) => ({ lineId: l.id, qty: Number(qty[l.id] ?? 0) })).filter((l) => Number.isInteger(l.qty) && l.qty > 0);
-    if (lines.length) receive.mutate({ id: po.id, input: { lines, ...(reference.trim() ? { reference: reference.trim() } : {}) } });
+    const lines = open
+      .map((l) => ({ lineId: l.id, qty: Number(qty[l.id] ?? 0), ...(bins[l.id]?.trim() ? { bin: bins[l.id]!.trim() } : {}) }))
+      .filter((l) => Number.isInteger(l.qty) && l.qty > 0);
+    if (lines.length) receive.mutate({ id: po.id, input: { lines, ...(reference.trim() ? { reference: reference.trim() } : {}), ...(fallbackBin.trim() ? { fallbackBin: fallbackBin.trim() } : {}) } });
   };
   return (
     <Card>
       <h2 className="mb-2 text-sm font-semibold">Receive goods against this order</h2>
       <form onSubmit={submit} className="space-y-2">
         {open.map((l) => (
-          <div key={l.id} className="flex items-center justify-between gap-3 text-sm">
-            <label htmlFor={`rcv-${l.id}`}><span className="num font-semibold">{l.sku}</span> <span className="text-ink-soft">({l.qty - l.received} expected)</span></label>
-            <input id={`rcv-${l.id}`} inputMode="numeric" value={qty[l.id] ?? ''} onChange={(e) => setQty((q) => ({ ...q, [l.id]: e.target.value }))} className="num w-24 rounded border border-line bg-card px-2 py-1 text-right" />
+          <div key={l.id} className="flex flex-wrap items-center justify-between gap-2 text-sm">
+            <label htmlFor={`rcv-${l.id}`} className="min-w-0 flex-1"><span className="num font-semibold">{l.sku}</span> <span className="text-ink-soft">({l.qty - l.received} expected)</span></label>
+            <input id={`rcv-${l.id}`} inputMode="numeric" value={qty[l.id] ?? ''} onChange={(e) => setQty((q) => ({ ...q, [l.id]: e.target.value }))} className="num w-20 rounded border border-line bg-card px-2 py-1 text-right" />
+            <input aria-label={`Bin for ${l.sku}`} placeholder="usual bin" value={bins[l.id] ?? ''} onChange={(e) => setBins((b) => ({ ...b, [l.id]: e.target.value }))} className="num w-24 rounded border border-line bg-card px-2 py-1" />
           </div>
         ))}
         <div className="flex flex-wrap items-end gap-3">
@@ -88,16 +98,13 @@ function ReceiveForm({ po }: { po: PurchaseOrder }) {
             <label htmlFor="rcv-ref" className="mb-1 block text-xs font-semibold text-ink-soft">Delivery docket (optional)</label>
             <input id="rcv-ref" value={reference} onChange={(e) => setReference(e.target.value)} className="num rounded border border-line bg-card px-2 py-1" />
           </div>
+          <div>
+            <label htmlFor="rcv-fallback" className="mb-1 block text-xs font-semibold text-ink-soft">Receiving bin (parts with no bin here yet)</label>
+            <input id="rcv-fallback" value={fallbackBin} onChange={(e) => setFallbackBin(e.target.value)} className="num rounded border border-line bg-card px-2 py-1" />
+          </div>
           <Button type="submit" variant="primary" disabled={receive.isPending}>Book in</Button>
         </div>
       </form>
-      {receive.data && (
-        <div className="mt-3">
-          <Notice tone="good" title={`Booked in as ${receive.data.reference}`}>
-            {receive.data.filledJobs.length ? `Backorders filled: ${receive.data.filledJobs.map((j) => `${j.reference} (${j.units})`).join(', ')}.` : 'No backorders were waiting for these parts.'}
-          </Notice>
-        </div>
-      )}
       {receive.error && <div className="mt-3"><Notice tone="danger">{receive.error.message}</Notice></div>}
     </Card>
   );

@@ -31,7 +31,7 @@ export function ReorderRoute() {
         <>
           <span className="num font-semibold">{c.row.original.sku}</span>
           <span className="block text-xs text-ink-soft">{c.row.original.name}</span>
-          <span className="block text-xs text-ink-soft" title={c.row.original.why}>{c.row.original.why}</span>
+          <span className="block text-xs text-ink-soft max-sm:hidden">{c.row.original.why}</span>
         </>
       ) },
       { id: 'position', header: 'Avail. / min / max', meta: { align: 'right', className: PHONE_HIDDEN }, cell: (c) => <span className="num">{c.row.original.available - c.row.original.backordered + c.row.original.onOrder} / {c.row.original.min} / {c.row.original.max}</span> },
