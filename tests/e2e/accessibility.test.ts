@@ -162,7 +162,7 @@ describe('axe-core on every main page', () => {
       await expectNoAxeViolations(page, `${where}supplier with cost history`);
       await expectWithinWidth(page, `${where}supplier with cost history`);
     }
-  });
+   }, 180_000); // ten pages at two widths
 
   it('finds nothing at phone width, with the menu and the filters open', async () => {
     const page = await h.newPage({ width: 390, height: 844 });
