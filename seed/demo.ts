@@ -8,6 +8,7 @@ import { DEMO_PASSWORD, makeCompany, makeUser, wholesaler } from './factories.ts
 import { seedCatalogue } from './catalogue.ts';
 import { seedDemoJobs } from './jobs.ts';
 import { seedDemoWarehouse } from './warehouse.ts';
+import { seedPurchasing } from './purchasing.ts';
 import type { PartsIndex } from '../server/search/parts-index.ts';
 import signIns from './demo-sign-ins.json' with { type: 'json' };
 
@@ -44,6 +45,7 @@ export async function seedDemo(db: Db, auth: Auth, partsIndex?: PartsIndex) {
   // The catalogue and the marker commit together, so an interrupted seed can simply run again.
   await db.transaction(async (tx) => {
     await seedCatalogue(tx);
+    await seedPurchasing(tx);
     const value = { version: DEMO_VERSION, at: new Date().toISOString() };
     await tx.insert(settings).values({ key: SEED_KEY, value }).onConflictDoUpdate({ target: settings.key, set: { value } });
   });

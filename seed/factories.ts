@@ -76,7 +76,7 @@ export async function makeMaker(db: DbOrTx, fields: Partial<Omit<DemoMaker, 'cod
 }
 
 /** A supplier by code (found or created). */
-export async function makeSupplier(db: DbOrTx, fields: { code: string; name?: string }) {
+export async function makeSupplier(db: DbOrTx, fields: { code: string } & Partial<typeof suppliers.$inferInsert>) {
   const [existing] = await db.select().from(suppliers).where(eq(suppliers.code, fields.code));
   if (existing) return existing;
   const [row] = await db.insert(suppliers).values({ name: `Supplier ${fields.code}`, ...fields }).returning();

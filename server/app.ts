@@ -23,6 +23,7 @@ import { mailRoutes } from './routes/mail.ts';
 import { paymentRoutes, paymentWebhookRoute } from './routes/payments.ts';
 import { portalRoutes } from './routes/portal.ts';
 import { warehouseRoutes } from './routes/warehouse.ts';
+import { purchasingRoutes } from './routes/purchasing.ts';
 import { createServices, type AppDeps, type AppOptions } from './deps.ts';
 
 export { createServices, type AppDeps, type AppOptions };
@@ -89,6 +90,7 @@ export function createApp(options: AppOptions, deps: AppDeps = createServices(op
   paymentRoutes(api, deps);
   portalRoutes(api, deps);
   warehouseRoutes(api, deps);
+  purchasingRoutes(api, deps);
   // Routes are fixed once the app is built, so the document is generated once.
   let openapi: unknown;
   router.get('/openapi.json', (_req, res) => {

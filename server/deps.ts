@@ -20,6 +20,10 @@ import { createInvoiceService, type InvoiceService } from './services/invoices.t
 import { createPortalService, type PortalService } from './services/portal.ts';
 import { createPickingService, type PickingService } from './services/picking.ts';
 import { createLabelsService, type LabelsService } from './services/labels.ts';
+import { createSupplierService, type SupplierService } from './services/suppliers.ts';
+import { createPriceListService, type PriceListService } from './services/price-lists.ts';
+import { createPricingService, type PricingService } from './services/pricing.ts';
+import { createPurchaseOrderService, onOrderFor, type PurchaseOrderService } from './services/purchase-orders.ts';
 
 /** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
 export interface AppOptions {
@@ -60,6 +64,10 @@ export interface AppDeps extends AppOptions {
   portal: PortalService;
   picking: PickingService;
   labels: LabelsService;
+  suppliers: SupplierService;
+  priceLists: PriceListService;
+  pricing: PricingService;
+  purchaseOrders: PurchaseOrderService;
 }
 
 /** Services built from the injected side effects; shared by the app, CLI tasks, tests and benchmarks. */
@@ -67,6 +75,7 @@ export function createServices(options: AppOptions): AppDeps {
   const partsIndex = createPartsIndex(options.search);
   const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
   const sessionCache = createSessionCache();
+  const purchaseOrders = createPurchaseOrderService({ db: options.db, now: options.now });
   const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (tx, ids) => partsIndex.sync(tx, [...new Set(ids)]) });
   const appUrl = options.appUrl ?? options.trustedOrigins[0] ?? 'http://127.0.0.1:3000';
   const mail = createMailService({ db: options.db, appUrl });
@@ -83,7 +92,7 @@ export function createServices(options: AppOptions): AppDeps {
     catalogue: createCatalogueService({ db: options.db, partsIndex, onPartsChanged: rangeCache.clear }),
     media: createMediaService({ db: options.db, files: options.files, partsIndex }),
     planner,
-    stock: createStockService({ db: options.db, now: options.now }),
+    stock: createStockService({ db: options.db, now: options.now, onPurchaseOrderReceipt: purchaseOrders.bookReceipt, onOrder: (db) => onOrderFor(db) }),
     jobs,
     mail,
     payments,
@@ -91,5 +100,9 @@ export function createServices(options: AppOptions): AppDeps {
     portal: createPortalService({ db: options.db, planner }),
     picking: createPickingService({ db: options.db, now: options.now, mail }),
     labels: createLabelsService({ db: options.db, planner, publicUrl: options.trustedOrigins[0] ?? 'http://127.0.0.1:3000', now: options.now }),
+    suppliers: createSupplierService({ db: options.db, partsIndex }),
+    priceLists: createPriceListService({ db: options.db, partsIndex }),
+    pricing: createPricingService({ db: options.db, partsIndex }),
+    purchaseOrders,
   };
 }

@@ -53,6 +53,8 @@ export const ABILITIES = {
   'invoices.view': ['admin', 'purchasing', 'sales', 'installer'],
   'jobs.pick': ['admin', 'warehouse'],
   'labels.print': ['admin', 'warehouse', 'sales'],
+  'purchasing.manage': ['admin', 'purchasing'],
+  'purchase-orders.view': ['admin', 'purchasing', 'warehouse'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Ability = keyof typeof ABILITIES;

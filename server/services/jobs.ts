@@ -12,7 +12,7 @@ import { heldByLine, inStockTransaction, newReference, partsBySku, releaseJobHol
 import { gatherHolds } from './hold-transfers.ts';
 import { assertReservable, reservationPlan, reserveInTx } from './reservations.ts';
 import type { MailService } from './mail.ts';
-import { unitPriceFor } from './pricing.ts';
+import { customerDiscountPct, unitPriceFor } from './pricing.ts';
 
 export interface JobDeps {
   db: Db;
@@ -71,8 +71,9 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     const found = await partsBySku(tx, lines.map((l) => l.sku));
     const [last] = await tx.select({ n: sql<number>`coalesce(max(${jobLines.lineNo}), 0)::int` }).from(jobLines).where(eq(jobLines.jobId, job.id));
     let lineNo = last?.n ?? 0;
+    const discount = await customerDiscountPct(tx, job.companyId);
     if (lines.length)
-      await tx.insert(jobLines).values(lines.map((l) => ({ jobId: job.id, lineNo: ++lineNo, partId: found.get(l.sku)!.id, qty: l.qty, planId: l.planId, reason: l.reason, unitPriceCents: unitPriceFor(job.companyId, found.get(l.sku)!) })));
+      await tx.insert(jobLines).values(lines.map((l) => ({ jobId: job.id, lineNo: ++lineNo, partId: found.get(l.sku)!.id, qty: l.qty, planId: l.planId, reason: l.reason, unitPriceCents: unitPriceFor(found.get(l.sku)!, discount) })));
     await tx.update(jobs).set({ linesCopiedAt: now() }).where(eq(jobs.id, job.id));
   }
 
@@ -220,7 +221,8 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
             .returning({ id: jobs.id });
           const jobId = row!.id;
           if (planIds.length) await tx.insert(jobPlans).values(planIds.map((planId) => ({ jobId, planId })));
-          if (extra.length) await tx.insert(jobLines).values(extra.map((l, i) => ({ jobId, lineNo: i + 1, partId: found.get(l.sku)!.id, qty: l.qty, reason: input.reason ?? 'Added by SKU', unitPriceCents: unitPriceFor(companyId, found.get(l.sku)!) })));
+          const discount = await customerDiscountPct(tx, companyId);
+          if (extra.length) await tx.insert(jobLines).values(extra.map((l, i) => ({ jobId, lineNo: i + 1, partId: found.get(l.sku)!.id, qty: l.qty, reason: input.reason ?? 'Added by SKU', unitPriceCents: unitPriceFor(found.get(l.sku)!, discount) })));
           if (planIds.length === 0) await tx.update(jobs).set({ linesCopiedAt: at }).where(eq(jobs.id, jobId));
           await tx.insert(jobStatusHistory).values({ jobId, status: 'draft', userId: actor.userId, at });
           return jobId;

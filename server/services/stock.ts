@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, gte, ilike, inArray, lt, sql, type SQL } from 'drizzle-orm';
-import type { Db } from '../db/client.ts';
+import type { Db, Tx } from '../db/client.ts';
 import { bins, companies, defaultBins, jobs, parts, partSerials, stockLevels, stockLimits, stockMovements, user, warehouses } from '../db/schema/index.ts';
 import { isSerialised } from '@shared/domain/warehouse.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
@@ -10,12 +10,16 @@ import { fillBackorders, inStockTransaction, levelKey, lockLevels, newReference,
 export interface StockDeps {
   db: Db;
   now?: () => Date;
+  /** Books a receipt against its purchase order inside the receipt's transaction (purchasing provides it). */
+  onPurchaseOrderReceipt?: (tx: Tx, receipt: { purchaseOrder: string; warehouseId: string; lines: { partId: string; qty: number }[] }) => Promise<void>;
+  /** Units on open purchase orders per `${partId}|${warehouseId}` (purchasing provides it). */
+  onOrder?: (db: Db) => Promise<Map<string, number>>;
 }
 
 const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
 
 /** The stock ledger as the only way stock changes: every change is a movement plus its level row, in one transaction. */
-export function createStockService({ db, now = () => new Date() }: StockDeps) {
+export function createStockService({ db, now = () => new Date(), onPurchaseOrderReceipt, onOrder }: StockDeps) {
   async function onePart(sku: string) {
     return (await partsBySku(db, [sku])).get(sku.toUpperCase())!;
   }
@@ -70,9 +74,9 @@ export function createStockService({ db, now = () => new Date() }: StockDeps) {
       if (q.sku) where.push(ilike(parts.sku, `${q.sku.replace(/[%_\\]/g, '\\$&')}%`));
       if (q.warehouse) where.push(eq(warehouses.code, q.warehouse.toUpperCase()));
       const cond = where.length ? and(...where) : undefined;
-      const [rows, [count]] = await Promise.all([
+      const [rows, [count], ordered] = await Promise.all([
         db
-          .select({ sku: parts.sku, name: parts.name, warehouse: warehouses.code, bin: stockLevels.bin, onHand: stockLevels.onHand, reserved: stockLevels.reserved, isDefaultBin: sql<boolean>`${defaultBins.bin} is not null` })
+          .select({ partId: parts.id, warehouseId: warehouses.id, sku: parts.sku, name: parts.name, warehouse: warehouses.code, bin: stockLevels.bin, onHand: stockLevels.onHand, reserved: stockLevels.reserved, isDefaultBin: sql<boolean>`${defaultBins.bin} is not null` })
           .from(stockLevels)
           .innerJoin(parts, eq(parts.id, stockLevels.partId))
           .innerJoin(warehouses, eq(warehouses.id, stockLevels.warehouseId))
@@ -87,8 +91,19 @@ export function createStockService({ db, now = () => new Date() }: StockDeps) {
           .innerJoin(parts, eq(parts.id, stockLevels.partId))
           .innerJoin(warehouses, eq(warehouses.id, stockLevels.warehouseId))
           .where(cond),
+        onOrder ? onOrder(db) : new Map<string, number>(),
       ]);
-      return { rows: rows.map((r) => ({ ...r, available: r.onHand - r.reserved, onOrder: 0 })), total: count?.n ?? 0 };
+      // Units on order belong to a part × warehouse: shown once, on its first bin row.
+      const shown = new Set<string>();
+      return {
+        rows: rows.map(({ partId, warehouseId, ...r }) => {
+          const key = `${partId}|${warehouseId}`;
+          const first = !shown.has(key);
+          shown.add(key);
+          return { ...r, available: r.onHand - r.reserved, onOrder: first ? (ordered.get(key) ?? 0) : 0 };
+        }),
+        total: count?.n ?? 0,
+      };
     },
 
     async movements(actor: Actor, q: MovementQuery) {
@@ -138,7 +153,9 @@ export function createStockService({ db, now = () => new Date() }: StockDeps) {
         if (seen) throw new ConflictError(`Receipt ${input.reference} has already been booked in.`, { fields: [{ path: 'reference', message: 'Already received.' }] });
       }
       const reference = input.reference ?? newReference('RCV', now());
-      const reason = purchaseOrder ? `Against purchase order ${purchaseOrder}` : null;
+      const po = input.purchaseOrder ?? purchaseOrder;
+      const reason = po ? `Against purchase order ${po}` : null;
+      if (input.purchaseOrder && !onPurchaseOrderReceipt) throw new ValidationError('Receiving against purchase orders is not available.', { fields: [{ path: 'purchaseOrder', message: 'Not available.' }] });
       const given = await inStockTransaction(db, async (tx) => {
         const locked = await lockLevels(tx, lines);
         for (const l of lines) {
@@ -146,6 +163,7 @@ export function createStockService({ db, now = () => new Date() }: StockDeps) {
           locked.get(levelKey(l))!.onHand += l.qty;
           if (l.serials.length) await tx.insert(partSerials).values(l.serials.map((serial) => ({ partId: l.partId, serial, state: 'in-stock' as const, warehouseId: l.warehouseId, bin: l.bin, receiptReference: reference, receivedAt: now() })));
         }
+        if (input.purchaseOrder) await onPurchaseOrderReceipt!(tx, { purchaseOrder: input.purchaseOrder, warehouseId: wh.id, lines });
         return fillBackorders(tx, [...locked.values()], now());
       }).catch((e: unknown) => {
         // Two receipts of one serial at once: the unique key refused the second.

@@ -107,6 +107,8 @@ export const SerialSchema = text().trim().regex(/^[A-Za-z0-9][A-Za-z0-9./-]{0,19
 export const ReceiptSchema = z.strictObject({
   warehouse,
   reference: text().trim().min(1).max(64).optional(),
+  /** The purchase order these goods arrive against (its number); its lines count them as received. */
+  purchaseOrder: text().trim().min(1).max(64).optional(),
   lines: z
     .array(
       z

@@ -29,4 +29,12 @@ export const paths = {
   pickList: { path: '/jobs/:id/pick-list', href: (id: string) => `/jobs/${encodeURIComponent(id)}/pick-list` },
   labels: { path: '/jobs/:id/labels', href: (id: string) => `/jobs/${encodeURIComponent(id)}/labels` },
   handover: { path: '/jobs/:id/handover', href: (id: string) => `/jobs/${encodeURIComponent(id)}/handover` },
+  priceLists: { path: '/purchasing', href: () => '/purchasing' },
+  priceList: { path: '/purchasing/imports/:id', href: (id: string) => `/purchasing/imports/${encodeURIComponent(id)}` },
+  suppliers: { path: '/purchasing/suppliers', href: () => '/purchasing/suppliers' },
+  supplier: { path: '/purchasing/suppliers/:id', href: (id: string) => `/purchasing/suppliers/${encodeURIComponent(id)}` },
+  pricing: { path: '/purchasing/pricing', href: () => '/purchasing/pricing' },
+  reorder: { path: '/purchasing/reorder', href: () => '/purchasing/reorder' },
+  purchaseOrders: { path: '/purchasing/orders', href: () => '/purchasing/orders' },
+  purchaseOrder: { path: '/purchasing/orders/:id', href: (id: string) => `/purchasing/orders/${encodeURIComponent(id)}` },
 } as const;

@@ -171,6 +171,33 @@ describe('axe-core on every main page', () => {
     }
   });
 
+  it('finds nothing on the purchasing pages, at desk and at phone width', async () => {
+    for (const size of [undefined, { width: 390, height: 844 }]) {
+      const where = size ? 'phone ' : '';
+      const page = await h.newPage(size);
+      await signInAs(page, 'purchasing@stackyard.test');
+      for (const [state, url, heading] of [
+        ['price lists', '/purchasing', /^Purchasing$/],
+        ['suppliers', '/purchasing/suppliers', /^Suppliers$/],
+        ['sell pricing', '/purchasing/pricing', /^Sell pricing$/],
+        ['reorder', '/purchasing/reorder', /^Reorder$/],
+        ['purchase orders', '/purchasing/orders', /^Purchase orders$/],
+      ] as [string, string, RegExp][]) {
+        await settled(page, url, heading);
+        await expectNoAxeViolations(page, `${where}${state}`);
+        await expectWithinWidth(page, `${where}${state}`);
+      }
+      await settled(page, '/purchasing/suppliers', /^Suppliers$/);
+      await page.getByRole('table', { name: 'Suppliers' }).locator('tbody [data-row-action]').first().click();
+      await waitForText(page.getByRole('heading', { level: 1 }), /^(?!Suppliers$)./);
+      await page.waitForLoadState('networkidle');
+      await page.getByRole('table', { name: 'Supplier parts' }).locator('tbody [data-row-action]').first().click();
+      await waitForText(page.locator('main'), /Cost history of/);
+      await expectNoAxeViolations(page, `${where}supplier with cost history`);
+      await expectWithinWidth(page, `${where}supplier with cost history`);
+    }
+   }, 180_000); // ten pages at two widths
+
   it('finds nothing at phone width, with the menu and the filters open', async () => {
     const page = await h.newPage({ width: 390, height: 844 });
     await signInAs(page, 'sales@stackyard.test');

@@ -8,9 +8,9 @@ beforeAll(async () => {
 afterAll(() => h?.close());
 
 const ROLES = [
-  { email: 'admin@stackyard.test', role: 'Administrator', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock', 'Warehouses', 'Users', 'Outbox'] },
-  { email: 'purchasing@stackyard.test', role: 'Purchasing', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock'] },
-  { email: 'warehouse@stackyard.test', role: 'Warehouse', nav: ['Home', 'Catalogue', 'Jobs', 'Stock'] },
+  { email: 'admin@stackyard.test', role: 'Administrator', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Picking', 'Stock', 'Purchasing', 'Purchase orders', 'Warehouses', 'Users', 'Outbox'] },
+  { email: 'purchasing@stackyard.test', role: 'Purchasing', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock', 'Purchasing', 'Purchase orders'] },
+  { email: 'warehouse@stackyard.test', role: 'Warehouse', nav: ['Home', 'Catalogue', 'Jobs', 'Picking', 'Stock', 'Purchase orders'] },
   { email: 'sales@stackyard.test', role: 'Trade desk', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs', 'Stock'] },
   { email: 'installer@stackyard.test', role: 'Installer', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs'] },
   { email: 'installer2@stackyard.test', role: 'Installer', nav: ['Home', 'Catalogue', 'Stack planner', 'Saved plans', 'Jobs'] },

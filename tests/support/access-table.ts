@@ -20,7 +20,13 @@ export type FixtureKey =
   | 'orderedJob' // an ordered job of company A that no route cancels (it has a tax invoice)
   | 'pickJob' // a job of company A with its one line reserved (ready to pick and label)
   | 'pickSku' // the SKU on `pickJob`
-  | 'label'; // a label number of `pickJob`
+  | 'label' // a label number of `pickJob`
+  | 'supplier' // a demo supplier
+  | 'priceList' // an uploaded (not yet mapped) price list of `supplier`
+  | 'tier' // a demo customer tier
+  | 'purchaseOrder' // a draft purchase order
+  | 'purchaseOrderToDelete' // a draft the delete route may remove
+  | 'recompute'; // a sell-price recompute
 export type Fixtures = Record<FixtureKey, string>;
 
 export interface OperationAccess {
@@ -143,6 +149,43 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'GET /api/jobs/{id}/labels.pdf': { allow: labellers, companyOwned: true, params: { id: 'pickJob' } },
   'GET /api/jobs/{id}/handover': { allow: everyone, companyOwned: true, params: { id: 'pickJob' } },
   'GET /api/jobs/{id}/handover.pdf': { allow: everyone, companyOwned: true, params: { id: 'pickJob' } },
+  // purchasing (suppliers, imports, pricing, orders: admin and purchasing; the warehouse sees orders to receive them)
+  'GET /api/suppliers': { allow: editors },
+  'POST /api/suppliers': { allow: editors },
+  'PUT /api/suppliers/{id}': { allow: editors, params: { id: 'supplier' } },
+  'GET /api/suppliers/{id}/parts': { allow: editors, params: { id: 'supplier' } },
+  'PUT /api/suppliers/{id}/parts': { allow: editors, params: { id: 'supplier' } },
+  'GET /api/suppliers/{id}/parts/{sku}/history': { allow: editors, params: { id: 'supplier', sku: 'sku' } },
+  'GET /api/price-lists': { allow: editors },
+  'POST /api/price-lists': { allow: editors },
+  'GET /api/price-lists/{id}': { allow: editors, params: { id: 'priceList' } },
+  'PUT /api/price-lists/{id}/mapping': { allow: editors, params: { id: 'priceList' } },
+  'GET /api/price-lists/{id}/preview': { allow: editors, params: { id: 'priceList' } },
+  'GET /api/price-lists/{id}/problems.csv': { allow: editors, params: { id: 'priceList' } },
+  'POST /api/price-lists/{id}/links': { allow: editors, params: { id: 'priceList' } },
+  'POST /api/price-lists/{id}/apply': { allow: editors, params: { id: 'priceList' } },
+  'GET /api/pricing/rules': { allow: editors },
+  'PUT /api/pricing/rules': { allow: editors },
+  'GET /api/pricing/parts': { allow: editors },
+  'PUT /api/pricing/parts/{sku}': { allow: editors, params: { sku: 'sku' } },
+  'POST /api/pricing/recompute': { allow: editors },
+  'GET /api/pricing/recomputes': { allow: editors },
+  'GET /api/pricing/recomputes/{id}/moves.csv': { allow: editors, params: { id: 'recompute' } },
+  'GET /api/pricing/tiers': { allow: editors },
+  'POST /api/pricing/tiers': { allow: editors },
+  'PUT /api/pricing/tiers/{id}': { allow: editors, params: { id: 'tier' } },
+  'PUT /api/pricing/customers/{id}/tier': { allow: editors, params: { id: 'customer' } },
+  'GET /api/sell-prices': { allow: everyone, query: (f) => ({ sku: f.sku }) },
+  'GET /api/reorder/suggestions': { allow: editors },
+  'POST /api/reorder/draft-orders': { allow: editors },
+  'GET /api/purchase-orders': { allow: ['admin', 'purchasing', 'warehouse'] },
+  'POST /api/purchase-orders': { allow: editors },
+  'GET /api/purchase-orders/{id}': { allow: ['admin', 'purchasing', 'warehouse'], params: { id: 'purchaseOrder' } },
+  'DELETE /api/purchase-orders/{id}': { allow: editors, params: { id: 'purchaseOrderToDelete' } },
+  'GET /api/purchase-orders/{id}/pdf': { allow: editors, params: { id: 'purchaseOrder' } },
+  'POST /api/purchase-orders/{id}/send': { allow: editors, params: { id: 'purchaseOrder' } },
+  'POST /api/purchase-orders/{id}/close': { allow: editors, params: { id: 'purchaseOrder' } },
+  'POST /api/purchase-orders/{id}/receipts': { allow: storemen, params: { id: 'purchaseOrder' } },
 };
 
 export type Caller = 'anonymous' | Role | 'other-installer';

@@ -3,6 +3,7 @@
 import sharp from 'sharp';
 import supertest from 'supertest';
 import { sql } from 'drizzle-orm';
+import { readFile } from 'node:fs/promises';
 import { seedDemo } from '../../seed/demo.ts';
 import { makeUser } from '../../seed/factories.ts';
 import { enqueueMail } from '../../server/services/mail.ts';
@@ -62,10 +63,25 @@ export async function arrangeFixtures(t: TestApp): Promise<{ fixtures: Fixtures;
   const pickJob = (await agents.admin.post('/api/jobs').send({ reference: 'Matrix pick job', companyId: (agents.installer as unknown as { companyId: string }).companyId, lines: [{ sku: pickSku, qty: 1 }] }).expect(201)).body.data.id as string;
   await agents.admin.post(`/api/jobs/${pickJob}/order`).expect(200);
   await agents.admin.post(`/api/jobs/${pickJob}/reserve`).expect(200);
+  const purchasing = await purchasingFixtures(t, agents);
   return {
-    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin, mail, orderedJob: invoiced.body.data.id, pickJob, pickSku, label: '1' },
+    fixtures: { sku, archiveSku, media, mediaToDelete, plan: saved.body.data.id, range, user: user.id, customer: (agents.installer as unknown as { companyId: string }).companyId, job: job.body.data.id, warehouse, bin, mail, orderedJob: invoiced.body.data.id, pickJob, pickSku, label: '1', ...purchasing },
     agents,
   };
+}
+
+/** A supplier, an uploaded price list, a tier, two draft purchase orders and a sell-price recompute. */
+async function purchasingFixtures(t: TestApp, agents: Agents) {
+  const { rows } = await t.db.execute<{ supplier: string; sku: string; tier: string }>(sql`
+    select s.id as supplier, p.sku, (select id from customer_tiers order by code limit 1) as tier
+    from suppliers s join part_supplier_skus ps on ps.supplier_id = s.id join parts p on p.id = ps.part_id
+    where s.code = 'KESTREL' and ps.cost_cents is not null order by p.sku limit 1`);
+  const { supplier, sku, tier } = rows[0]!;
+  const file = await readFile(new URL('../../seed/price-lists/marram-wholesale-2027-03.csv', import.meta.url));
+  const priceList = (await agents.purchasing.post('/api/price-lists').field('supplierId', supplier).attach('file', file, 'prices.csv').expect(201)).body.data.id as string;
+  const order = async () => (await agents.purchasing.post('/api/purchase-orders').send({ supplier: 'KESTREL', warehouse: 'WST', lines: [{ sku, qty: 2 }] }).expect(201)).body.data.id as string;
+  const recompute = (await agents.purchasing.post('/api/pricing/recompute').expect(200)).body.data.id as string;
+  return { supplier, priceList, tier, purchaseOrder: await order(), purchaseOrderToDelete: await order(), recompute };
 }
 
 /** The path with each {param} filled (already encoded by the caller when it wants raw bytes). */

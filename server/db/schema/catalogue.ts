@@ -12,11 +12,31 @@ export const makers = pgTable('makers', {
   country: text(),
 });
 
-export const suppliers = pgTable('suppliers', {
-  id: uuid().primaryKey().defaultRandom(),
-  code: text().notNull().unique(),
-  name: text().notNull(),
-});
+export const suppliers = pgTable(
+  'suppliers',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    code: text().notNull().unique(),
+    name: text().notNull(),
+    /** ISO 4217 code the supplier invoices in; costs are converted to AUD with `audPerUnit` on import. */
+    currency: text().notNull().default('AUD'),
+    audPerUnit: numeric({ precision: 12, scale: 6 }).notNull().default('1'),
+    /** How the supplier writes numbers in its files (see shared/domain/price-list.ts NUMBER_LOCALES). */
+    numberLocale: text().notNull().default('en-AU'),
+    leadTimeDays: integer().notNull().default(7),
+    contactName: text(),
+    contactEmail: text(),
+    contactPhone: text(),
+    /** A cost change larger than this (either way) is flagged in an import's diff. */
+    flagChangePct: numeric({ precision: 6, scale: 2 }).notNull().default('10'),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    check('suppliers_rate_positive', sql`${t.audPerUnit} > 0`),
+    check('suppliers_lead_time_range', sql`${t.leadTimeDays} >= 0 and ${t.leadTimeDays} <= 365`),
+    check('suppliers_flag_range', sql`${t.flagChangePct} >= 0 and ${t.flagChangePct} <= 1000`),
+  ],
+);
 
 export const parts = pgTable(
   'parts',
@@ -81,9 +101,26 @@ export const partSupplierSkus = pgTable(
       .notNull()
       .references(() => suppliers.id),
     supplierSku: text().notNull(),
+    /** The supplier's description, as in its last price list. */
+    description: text(),
+    /** Units of our part in one of the supplier's packs; orders are whole packs. */
+    packSize: integer().notNull().default(1),
+    /** Minimum order quantity, in units. */
+    moq: integer().notNull().default(1),
+    /** Cost per unit in AUD cents with up to two further decimals (4-dp costs), at quantity 1. */
+    costCents: numeric({ precision: 14, scale: 2, mode: 'number' }),
+    /** Cheaper unit costs from a quantity up: [{ minQty, costCents }], ascending by minQty. */
+    priceBreaks: jsonb().$type<{ minQty: number; costCents: number }[]>().notNull().default([]),
+    /** The supplier's recommended sell price per unit ex GST, cents, when its list gives one. */
+    listPriceCents: bigint({ mode: 'number' }),
+    /** Overrides the supplier's lead time for this part. */
+    leadTimeDays: integer(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     primaryKey({ columns: [t.partId, t.supplierId] }),
+    check('part_supplier_skus_pack_positive', sql`${t.packSize} >= 1 and ${t.moq} >= 1`),
+    check('part_supplier_skus_money_nonnegative', sql`coalesce(${t.costCents}, 0) >= 0 and coalesce(${t.listPriceCents}, 0) >= 0`),
     uniqueIndex().on(t.supplierId, t.supplierSku),
     index('part_supplier_skus_upper_idx').on(sql`upper(${t.supplierSku})`),
   ],

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { check, jsonb, numeric, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { type AnyPgColumn, check, jsonb, numeric, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 
 /** The wholesaler itself and its customer accounts (installer companies). */
 export const companies = pgTable(
@@ -11,6 +11,8 @@ export const companies = pgTable(
     abn: text(),
     accountType: text({ enum: ['trade', 'cash'] }).notNull().default('trade'),
     tierDiscountPct: numeric({ precision: 5, scale: 2 }).notNull().default('0'),
+    /** The customer's price tier; its discount wins over `tierDiscountPct` when set. */
+    tierId: uuid().references((): AnyPgColumn => customerTiers.id),
     suburb: text(),
     postcode: text(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -29,3 +31,15 @@ export const settings = pgTable('settings', {
   value: jsonb().notNull(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
+
+/** Price tiers for customer accounts: a discount off the sell price list (purchasing sets them). */
+export const customerTiers = pgTable(
+  'customer_tiers',
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    code: text().notNull().unique(),
+    name: text().notNull(),
+    discountPct: numeric({ precision: 5, scale: 2 }).notNull().default('0'),
+  },
+  (t) => [check('customer_tiers_discount_range', sql`${t.discountPct} >= 0 and ${t.discountPct} < 100`)],
+);

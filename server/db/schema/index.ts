@@ -7,3 +7,4 @@ export * from './jobs.ts';
 export * from './mail.ts';
 export * from './payments.ts';
 export * from './warehouse.ts';
+export * from './purchasing.ts';
