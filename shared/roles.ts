@@ -43,6 +43,7 @@ export const ABILITIES = {
   'jobs.create': ['admin', 'sales', 'installer'],
   'jobs.reserve': ['admin', 'sales'],
   'jobs.cancel': ['admin', 'sales'],
+  'jobs.handover': ['admin', 'sales', 'warehouse'],
   'stock.adjust': ['admin', 'warehouse'],
   'stock.transfer': ['admin', 'warehouse'],
   'stock.receive': ['admin', 'warehouse'],

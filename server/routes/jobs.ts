@@ -49,6 +49,9 @@ export function jobRoutes(api: Api, { jobs }: Pick<AppDeps, 'jobs'>) {
     { verb: 'reserve', ability: 'jobs.reserve', summary: 'Reserve stock for every line in one transaction (a draft is held as a quote); what is short is backordered' },
     { verb: 'release', ability: 'jobs.reserve', summary: 'Release every unit the job holds and drop its backorders' },
     { verb: 'cancel', ability: 'jobs.cancel', summary: 'Cancel the job and release its stock' },
+    { verb: 'dispatch', ability: 'jobs.handover', summary: 'A ready job has left with a carrier (the customer is told)' },
+    { verb: 'collect', ability: 'jobs.handover', summary: 'A ready job was collected at the counter' },
+    { verb: 'close', ability: 'jobs.handover', summary: 'Close a dispatched or collected job' },
     { verb: 'gather', ability: 'stock.transfer', summary: 'Move the units the job holds in other warehouses to its preferred warehouse (transfer out and in; the units stay the job’s)' },
   ] as const;
   for (const a of actions) {

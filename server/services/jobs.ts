@@ -22,7 +22,7 @@ export interface JobDeps {
   /** How long a quote (a draft's reservation) holds its units. */
   quoteHoldDays?: number;
   /** Messages about the job, written in the transaction of the change they report. */
-  mail?: Pick<MailService, 'jobOrdered' | 'jobBackorders'>;
+  mail?: Pick<MailService, 'jobOrdered' | 'jobBackorders' | 'jobStatusChanged'>;
   /** Runs after a job is cancelled (a card payment is refunded). */
   onCancelled?: (jobId: string) => Promise<void>;
 }
@@ -136,6 +136,9 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       reserve: can(actor.role, 'jobs.reserve') && ['draft', 'ordered', 'part-reserved'].includes(job.status) && !fullyHeld && (lines.length > 0 || plans.length > 0),
       release: can(actor.role, 'jobs.reserve') && BEFORE_PICKING.includes(job.status) && (holding || queue.length > 0),
       cancel: can(actor.role, 'jobs.cancel') && BEFORE_PICKING.includes(job.status),
+      dispatch: can(actor.role, 'jobs.handover') && job.status === 'ready',
+      collect: can(actor.role, 'jobs.handover') && job.status === 'ready',
+      close: can(actor.role, 'jobs.handover') && (job.status === 'dispatched' || job.status === 'collected'),
       gather: can(actor.role, 'stock.transfer') && (job.status === 'reserved' || job.status === 'part-reserved') && held.some((r) => r.needsTransfer),
     };
     const holdExpiresAt = held.reduce<Date | null>((min, r) => (r.expiresAt && (!min || r.expiresAt < min) ? r.expiresAt : min), null);
@@ -190,6 +193,21 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     const plan = await reservationPlan(db, jobId);
     if (plan.lines.length === 0) throw new ConflictError('This job has no lines to reserve.');
     return reserveGrouped(jobId, plan, { userId: actor.userId, now: now(), quoteHoldMs: quoteHoldDays * 86_400_000, firmUpOnly });
+  }
+
+  /** One step after picking, checked again under the job's lock; the customer hears of a dispatch. */
+  async function handOver(actor: Actor, id: string, from: JobStatus[], to: JobStatus) {
+    authorize(actor, 'jobs.handover');
+    const job = await visibleJob(actor, id);
+    const refuse = (status: JobStatus) => new ConflictError(`This job is ${status}; only a job that is ${from.join(' or ')} can be marked ${to}.`);
+    if (!from.includes(job.status)) throw refuse(job.status);
+    await db.transaction(async (tx) => {
+      const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+      if (!from.includes(locked!.status)) throw refuse(locked!.status);
+      await record(tx, id, to, actor.userId);
+      if (to === 'dispatched') await mail?.jobStatusChanged(tx, id, 'dispatched');
+    });
+    return detail(actor, id);
   }
 
   const service = {
@@ -326,6 +344,12 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       await onCancelled?.(id);
       return detail(actor, id);
     },
+
+    /** A picked kit leaves: sent with a carrier (the customer hears of it) or collected at the counter. */
+    dispatch: (actor: Actor, id: string) => handOver(actor, id, ['ready'], 'dispatched'),
+    collect: (actor: Actor, id: string) => handOver(actor, id, ['ready'], 'collected'),
+    /** The job is done: nothing more is expected of it. */
+    close: (actor: Actor, id: string) => handOver(actor, id, ['dispatched', 'collected'], 'closed'),
 
     /** Moves the units the job holds in other warehouses to its preferred one (stock.transfer). */
     async gather(actor: Actor, id: string) {

@@ -93,7 +93,7 @@ export const JobSchema = JobHeadSchema.extend({
   /** The card payment that went through (null when none has). */
   payment: z.object({ status: z.enum(['paid', 'refunded']), amountCents: z.number(), paidAt: text() }).nullable(),
   /** What the signed-in user may do with this job now. */
-  abilities: z.object({ order: z.boolean(), reserve: z.boolean(), release: z.boolean(), cancel: z.boolean(), gather: z.boolean(), pay: z.boolean(), invoice: z.boolean(), reorder: z.boolean() }),
+  abilities: z.object({ order: z.boolean(), reserve: z.boolean(), release: z.boolean(), cancel: z.boolean(), gather: z.boolean(), dispatch: z.boolean(), collect: z.boolean(), close: z.boolean(), pay: z.boolean(), invoice: z.boolean(), reorder: z.boolean() }),
 });
 export type Job = z.infer<typeof JobSchema>;
 

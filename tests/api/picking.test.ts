@@ -166,6 +166,27 @@ describe('completing the pick', () => {
     expect(job.body.data.history.at(-1)).toMatchObject({ status: 'ready', note: 'Picked: 10 units issued, 2 serials' });
   });
 
+  it('hands a ready kit over: dispatched (the customer is e-mailed, as when it became ready), then closed; out of order is a 409', async () => {
+    const k = await kit();
+    await pickKit(warehouse, k, ['HX5-8101', 'HX5-8102']);
+    expect((await post(warehouse, `/api/jobs/${k.id}/pick/complete`)).body.data.status).toBe('ready');
+    const mails = async () => (await t.db.execute<{ event: string }>(sql`select event from mail_outbox where refs->>'jobId' = ${k.id} order by created_at`)).rows.map((r) => r.event);
+    expect(await mails()).toContain('ready-for-collection');
+    expect((await installer.post(`/api/jobs/${k.id}/dispatch`).set('origin', TEST_ORIGIN)).status).toBe(403);
+    const early = await post(sales, `/api/jobs/${k.id}/close`);
+    expect(early.status).toBe(409);
+    expect(early.body.error.message).toMatch(/only a job that is dispatched or collected can be marked closed/);
+    const sent = await post(warehouse, `/api/jobs/${k.id}/dispatch`);
+    expect(sent.status, sent.text).toBe(200);
+    expect(sent.body.data.status).toBe('dispatched');
+    expect(sent.body.data.abilities).toMatchObject({ dispatch: false, collect: false, close: true });
+    expect(await mails()).toContain('dispatched');
+    expect((await post(warehouse, `/api/jobs/${k.id}/collect`)).status).toBe(409);
+    const closed = await post(sales, `/api/jobs/${k.id}/close`);
+    expect(closed.body.data.status).toBe('closed');
+    expect(closed.body.data.history.map((h: { status: string }) => h.status).slice(-3)).toEqual(['ready', 'dispatched', 'closed']);
+  });
+
   it('refuses a serial already issued to another job', async () => {
     const first = await kit();
     await pickKit(warehouse, first, ['HX5-9001', 'HX5-9002']);

@@ -107,6 +107,9 @@ export const ACCESS_TABLE: Record<string, OperationAccess> = {
   'POST /api/jobs/{id}/order': { allow: jobMakers, companyOwned: true, params: { id: 'job' } },
   'POST /api/jobs/{id}/reserve': { allow: desk, companyOwned: true, params: { id: 'job' } },
   'POST /api/jobs/{id}/release': { allow: desk, companyOwned: true, params: { id: 'job' } },
+  'POST /api/jobs/{id}/dispatch': { allow: ['admin', 'sales', 'warehouse'], companyOwned: true, params: { id: 'job' } },
+  'POST /api/jobs/{id}/collect': { allow: ['admin', 'sales', 'warehouse'], companyOwned: true, params: { id: 'job' } },
+  'POST /api/jobs/{id}/close': { allow: ['admin', 'sales', 'warehouse'], companyOwned: true, params: { id: 'job' } },
   'POST /api/jobs/{id}/gather': { allow: storemen, params: { id: 'job' } },
   'POST /api/jobs/{id}/cancel': { allow: desk, companyOwned: true, params: { id: 'job' } },
 

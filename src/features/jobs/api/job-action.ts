@@ -3,7 +3,7 @@ import type { Job } from '@shared/contracts/jobs.ts';
 import { api } from '@/lib/api-client.ts';
 import { jobKeys } from './keys.ts';
 
-export type JobAction = 'order' | 'reserve' | 'release' | 'cancel' | 'gather';
+export type JobAction = 'order' | 'reserve' | 'release' | 'cancel' | 'gather' | 'dispatch' | 'collect' | 'close';
 
 export const runJobAction = (id: string, action: JobAction) => api<{ data: Job }>(`/jobs/${encodeURIComponent(id)}/${action}`, { method: 'POST' }).then((r) => r.data);
 

@@ -9,6 +9,9 @@ const LABELS: Record<JobAction, { label: string; busy: string; variant: 'primary
   reserve: { label: 'Reserve stock', busy: 'Reserving…', variant: 'primary' },
   release: { label: 'Release stock', busy: 'Releasing…', variant: 'secondary' },
   cancel: { label: 'Cancel job', busy: 'Cancelling…', variant: 'danger' },
+  dispatch: { label: 'Sent with a carrier', busy: 'Recording…', variant: 'primary' },
+  collect: { label: 'Collected at the counter', busy: 'Recording…', variant: 'primary' },
+  close: { label: 'Close job', busy: 'Closing…', variant: 'secondary' },
   gather: { label: 'Move held stock to this job’s warehouse', busy: 'Moving…', variant: 'secondary' },
 };
 
