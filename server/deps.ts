@@ -75,7 +75,7 @@ export function createServices(options: AppOptions): AppDeps {
   const partsIndex = createPartsIndex(options.search);
   const rangeCache = createTtlCache<LoadedRange>(RANGE_CACHE_MS);
   const sessionCache = createSessionCache();
-  const purchaseOrders = createPurchaseOrderService({ db: options.db, now: options.now });
+  const purchaseOrders = createPurchaseOrderService({ db: options.db, now: options.now, onPurchaseOrderSent: (tx, po) => mail.purchaseOrderSent(tx, po.id).then(() => {}) });
   const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (tx, ids) => partsIndex.sync(tx, [...new Set(ids)]) });
   const appUrl = options.appUrl ?? options.trustedOrigins[0] ?? 'http://127.0.0.1:3000';
   const mail = createMailService({ db: options.db, appUrl });

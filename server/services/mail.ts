@@ -79,6 +79,28 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
   return {
     enqueue: enqueueMail,
 
+    /** A purchase order marked sent goes to the supplier's contact (none on file: nothing is sent). */
+    async purchaseOrderSent(tx: DbOrTx, poId: string) {
+      const { rows } = await tx.execute<{ number: string; supplier: string; email: string | null; deliver_to: string; expected: Date | null; buyer: string | null }>(sql`
+        select po.number, s.name as supplier, s.contact_email as email, w.name as deliver_to, po.expected_at as expected, u.name as buyer
+        from purchase_orders po join suppliers s on s.id = po.supplier_id join warehouses w on w.id = po.warehouse_id left join "user" u on u.id = po.created_by
+        where po.id = ${poId}`);
+      const po = rows[0];
+      if (!po) throw new NotFoundError('That purchase order');
+      if (!po.email) return [];
+      const { rows: lines } = await tx.execute<{ sku: string; name: string; qty: number; supplier_sku: string; cost: string | null }>(sql`
+        select p.sku, p.name, l.qty, l.supplier_sku, l.unit_cost_cents as cost from purchase_order_lines l join parts p on p.id = l.part_id
+        where l.purchase_order_id = ${poId} order by l.line_no`);
+      return toAll(tx, [po.email], 'purchase-order', {
+        supplierName: po.supplier,
+        poNumber: po.number,
+        lines: lines.map((l) => ({ sku: l.sku, name: l.name, qty: l.qty, supplierSku: l.supplier_sku, unitCostCents: l.cost === null ? null : Math.round(Number(l.cost)) })),
+        deliverTo: po.deliver_to,
+        expectedBy: po.expected ? new Date(po.expected).toISOString().slice(0, 10) : null,
+        buyerName: po.buyer ?? 'our purchasing team',
+      }, { purchaseOrderId: poId });
+    },
+
     /** The order has reached the desk (installer ordered, or a card payment confirmed it). */
     async jobOrdered(tx: DbOrTx, jobId: string) {
       const { job, to } = await jobAudience(tx, jobId);

@@ -29,8 +29,8 @@ async function twoSupplierPart(opts: { onHand: number; min: number; max: number 
   const part = await makePart(t.db, { packSize: 1 });
   await putStock(t.db, part.id, main.id, 'A-01', opts.onHand, { isDefault: true });
   await t.db.insert(stockLimits).values({ partId: part.id, minQty: opts.min, maxQty: opts.max });
-  const cheapInBulk = await makeSupplier(t.db, { code: `BULK-${part.sku.slice(-4)}`, leadTimeDays: 20 });
-  const quick = await makeSupplier(t.db, { code: `QUICK-${part.sku.slice(-4)}`, leadTimeDays: 2 });
+  const cheapInBulk = await makeSupplier(t.db, { code: `BULK-${part.sku.slice(-4)}`, leadTimeDays: 20, contactEmail: `orders-${part.sku.slice(-4).toLowerCase()}@bulk.test` });
+  const quick = await makeSupplier(t.db, { code: `QUICK-${part.sku.slice(-4)}`, leadTimeDays: 2, contactEmail: `sales-${part.sku.slice(-4).toLowerCase()}@quick.test` });
   // Bulk: $10 each, packs of 6, MOQ 12, $8.50 from 24. Quick: $9.50 each, loose.
   await t.db.insert(partSupplierSkus).values([
     { partId: part.id, supplierId: cheapInBulk.id, supplierSku: `B-${part.sku}`, costCents: 1000, packSize: 6, moq: 12, priceBreaks: [{ minQty: 24, costCents: 850 }] },
@@ -82,6 +82,13 @@ describe('purchase orders', () => {
 
     expect((await post(warehouse, `/api/purchase-orders/${po.id}/receipts`, { lines: [{ lineId: detail.lines[0].id, qty: 1 }] })).status).toBe(409); // not sent yet
     expect((await post(purchasing, `/api/purchase-orders/${po.id}/send`)).status).toBe(200);
+    // Sending it queues the order for the supplier's contact, with our SKU, theirs, the quantity and the cost.
+    const { rows: sent } = await t.db.execute<{ to: string; subject: string; text: string }>(sql`select "to", subject, text from mail_outbox where event = 'purchase-order' and refs->>'purchaseOrderId' = ${po.id}`);
+    expect(sent).toHaveLength(1);
+    expect(sent[0]!.to).toBe(detail.supplier.contactEmail);
+    expect(sent[0]!.to).toMatch(/@(bulk|quick)\.test$/);
+    expect(sent[0]!.subject).toContain(detail.number);
+    expect(sent[0]!.text).toMatch(new RegExp(`18 × \\S+ +${part.name}.*\\$9\\.50`));
     const levels = async () => (await warehouse.get(`/api/stock?sku=${part.sku}`)).body.data[0];
     expect((await levels()).onOrder).toBe(18);
 
