@@ -101,7 +101,7 @@ export function createServices(options: AppOptions): AppDeps {
     picking: createPickingService({ db: options.db, now: options.now, mail }),
     labels: createLabelsService({ db: options.db, planner, publicUrl: options.trustedOrigins[0] ?? 'http://127.0.0.1:3000', now: options.now }),
     suppliers: createSupplierService({ db: options.db, partsIndex }),
-    priceLists: createPriceListService({ db: options.db, partsIndex }),
+    priceLists: createPriceListService({ db: options.db, partsIndex, onApplied: (tx, applied) => mail.priceListApplied(tx, applied) }),
     pricing: createPricingService({ db: options.db, partsIndex }),
     purchaseOrders,
   };

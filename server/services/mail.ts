@@ -147,6 +147,13 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
       return rows.map((r) => r.email);
     },
 
+    /** Purchasing hears that a supplier's price list was applied, with what it changed. */
+    async priceListApplied(tx: DbOrTx, info: { importId: string; supplierName: string; fileName: string; counts: { new: number; changed: number; unchanged: number; missing: number }; appliedBy: string }) {
+      const to = await this.staffAddresses(tx, ['purchasing']);
+      const { counts } = info;
+      return toAll(tx, to, 'price-list-applied', { supplierName: info.supplierName, fileName: info.fileName, added: counts.new, changed: counts.changed, unchanged: counts.unchanged, missing: counts.missing, appliedBy: info.appliedBy, url: `${appUrl}/purchasing/imports/${info.importId}` }, { importId: info.importId });
+    },
+
     /** The daily digest for purchasing: parts whose available stock is at or below their minimum. Sends nothing when none are. */
     async lowStockDigest(at: Date = new Date()) {
       return db.transaction(async (tx) => {

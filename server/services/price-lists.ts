@@ -30,7 +30,9 @@ const emptyCounts = (): PreviewCounts => ({ rows: 0, ok: 0, errors: 0, new: 0, c
  * parts, apply in one transaction. Staging and applying report progress to an in-memory table the
  * client polls; see DEVELOPERS.md "Price-list imports".
  */
-export function createPriceListService({ db, partsIndex }: { db: Db; partsIndex: PartsIndex }) {
+export type PriceListApplied = { importId: string; supplierName: string; fileName: string; counts: PreviewCounts; appliedBy: string };
+
+export function createPriceListService({ db, partsIndex, onApplied }: { db: Db; partsIndex: PartsIndex; onApplied?: (tx: Tx, applied: PriceListApplied) => Promise<unknown> }) {
   const progress = new Map<string, { done: number; total: number }>();
 
   async function load(id: string) {
@@ -422,6 +424,7 @@ export function createPriceListService({ db, partsIndex }: { db: Db; partsIndex:
           // 6. The import record.
           const finalCounts = await countRows(tx, id, imp!.supplierId);
           await tx.update(priceListImports).set({ status: 'applied', appliedBy: actor.userId, appliedAt: new Date(), counts: { ...finalCounts, applied: touched.length, pricesMoved: recompute.moved } }).where(eq(priceListImports.id, id));
+          await onApplied?.(tx, { importId: id, supplierName: first.supplier.name, fileName: imp!.fileName, counts: finalCounts, appliedBy: actor.name });
           await report(6, steps);
           return { applied: true, counts: finalCounts, pricesMoved: recompute.moved };
         });

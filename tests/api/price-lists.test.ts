@@ -106,9 +106,17 @@ describe('the Marram CSV (semicolons, euros written 1.234,50)', () => {
     const after = await purchasingState();
     expect(after!.applied).toBe(before!.applied + 1);
     expect(after!.history).toBe(before!.history + res.body.data.counts.changed);
+    // Purchasing is told, once, with what the file changed.
+    const told = async () => (await t.db.execute<{ to: string; text: string }>(sql`select "to", text from mail_outbox where event = 'price-list-applied' and refs->>'importId' = ${id}`)).rows;
+    const first = await told();
+    expect(first.length).toBeGreaterThan(0);
+    const { rows: me } = await t.db.execute<{ email: string }>(sql`select email from "user" where id = ${purchasing.userId}`);
+    expect(first.map((m) => m.to)).toContain(me[0]!.email);
+    expect(first[0]!.text).toContain(`${res.body.data.counts.new} new, ${res.body.data.counts.changed} changed`);
     const again = await send(purchasing, 'post', `/api/price-lists/${id}/apply`);
     expect(again.body.data.applied).toBe(false);
     expect(await purchasingState()).toEqual(after);
+    expect(await told()).toHaveLength(first.length);
   });
 
   it('the same file uploaded again finds nothing to change', async () => {
