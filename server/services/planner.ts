@@ -9,6 +9,9 @@ import { createTtlCache, type TtlCache } from '../lib/ttl-cache.ts';
 import { planStack, type PlannerInverter, type PlannerPart, type PlannerRange, type PlannerUnit } from '@shared/domain/planner.ts';
 import { BomRulesSchema, unknownRuleSkus } from '@shared/domain/bom-rules.ts';
 import { StackPlanRequestSchema, type RangeInput, type SavePlanInput, type StackPlanRequest } from '@shared/contracts/stack-plans.ts';
+import { pricedLineTotal, quoteTotals, type QuoteTotals } from '@shared/domain/quote.ts';
+import { discountedCents } from '@shared/domain/pricing.ts';
+import { customerDiscountPct } from './pricing.ts';
 
 type PartRow = typeof parts.$inferSelect;
 const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -179,7 +182,7 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
       includeInverter: input.includeInverter,
     });
     if (!result.ok) throw new ValidationError(result.error.message, { code: result.error.code, ...result.error.details });
-    const p = result.plan;
+    const p = atCustomerPrices(result.plan, await customerDiscountPct(db, companyScopeOf(actor)));
     return {
       ...p,
       rangeId: loaded.row.id,
@@ -366,3 +369,13 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
 }
 
 export type PlannerService = ReturnType<typeof createPlannerService>;
+
+/** An installer's plan priced at their company's tier (the list price less its discount); staff see list prices. */
+function atCustomerPrices<P extends { bom: { packs: number; unitPriceCents: number | null; lineTotalCents: number | null }[]; totals: QuoteTotals }>(plan: P, discountPct: number): P {
+  if (discountPct === 0) return plan;
+  const bom = plan.bom.map((l) => {
+    const unitPriceCents = l.unitPriceCents === null ? null : discountedCents(l.unitPriceCents, discountPct);
+    return { ...l, unitPriceCents, lineTotalCents: pricedLineTotal({ packs: l.packs, unitPriceCents }) };
+  });
+  return { ...plan, bom, totals: quoteTotals(bom, plan.totals.gstMethod) };
+}

@@ -18,6 +18,28 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 describe('POST /api/stack-plans', () => {
+  it('prices an installer’s plan at their company’s discount; the trade desk sees list prices', async () => {
+    const company = await makeCompany(t.db, { tierDiscountPct: '12.5' });
+    const installer = await t.signIn('installer', { companyId: company.id });
+    const sales = await t.signIn('sales');
+    const ask = { rangeId: ids['QRB-HEARTH'], modules: 3 };
+    const list = (await sales.post('/api/stack-plans').send(ask).expect(200)).body.data;
+    const theirs = (await installer.post('/api/stack-plans').send(ask).expect(200)).body.data;
+    for (const [i, l] of (list.bom as { sku: string; packs: number; unitPriceCents: number | null }[]).entries()) {
+      const mine = theirs.bom[i];
+      expect(mine.sku).toBe(l.sku);
+      // 12.5 % off, rounded half up to the cent (common practice); e.g. $58.00 → $50.75.
+      expect(mine.unitPriceCents).toBe(l.unitPriceCents === null ? null : Math.round((l.unitPriceCents * 875) / 1000));
+      expect(mine.lineTotalCents).toBe(mine.unitPriceCents === null ? null : mine.unitPriceCents * l.packs);
+    }
+    const subtotal = (theirs.bom as { lineTotalCents: number | null }[]).reduce((s, l) => s + (l.lineTotalCents ?? 0), 0);
+    expect(theirs.totals.subtotalCents).toBe(subtotal);
+    expect(theirs.totals.subtotalCents).toBeLessThan(list.totals.subtotalCents);
+    // GST 10 % on the invoice total (GST Act s 9-70, rounded to the cent).
+    expect(theirs.totals.gstCents).toBe(Math.round(subtotal / 10));
+    expect(theirs.totals.totalCents).toBe(subtotal + theirs.totals.gstCents);
+  });
+
   it('needs a session; warehouse may not plan', async () => {
     await request(t.app).post('/api/stack-plans').send({ rangeId: ids['QRB-HEARTH'], modules: 2 }).expect(401);
     const wh = await t.signIn('warehouse');
