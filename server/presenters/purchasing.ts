@@ -1,6 +1,7 @@
 import { can } from '@shared/roles.ts';
 import { centsToDollars, invoiceGst } from '@shared/domain/money.ts';
 import { changePct } from '@shared/domain/price-list.ts';
+import { isSerialised } from '@shared/domain/warehouse.ts';
 import type { NumberLocale, PriceList, PurchaseOrder, Supplier } from '@shared/contracts/purchasing.ts';
 import type { Actor } from '../policies/actor.ts';
 import type { SupplierService } from '../services/suppliers.ts';
@@ -100,7 +101,7 @@ export function presentPurchaseOrder(actor: Actor, po: Awaited<ReturnType<Purcha
     createdAt: po.createdAt.toISOString(),
     sentAt: iso(po.sentAt),
     closedAt: iso(po.closedAt),
-    lines: po.lines.map((l, i) => ({ id: l.id, lineNo: l.lineNo, sku: l.sku, name: l.name, supplierSku: l.supplierSku, qty: l.qty, received: l.received, unitCostCents: cost ? l.unitCostCents : null, lineCents: cost ? gst.lines[i]!.exCents : null })),
+    lines: po.lines.map((l, i) => ({ id: l.id, lineNo: l.lineNo, sku: l.sku, name: l.name, supplierSku: l.supplierSku, qty: l.qty, received: l.received, serialised: isSerialised(l.category), unitCostCents: cost ? l.unitCostCents : null, lineCents: cost ? gst.lines[i]!.exCents : null })),
     totals: cost ? { exCents: gst.exCents, gstCents: gst.gstCents, incCents: gst.incCents } : null,
   };
 }

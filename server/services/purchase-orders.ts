@@ -87,7 +87,7 @@ export function createPurchaseOrderService({ db, now = () => new Date(), onPurch
       .where(eq(purchaseOrders.id, id));
     if (!po) throw new NotFoundError('That purchase order');
     const lines = await db
-      .select({ id: purchaseOrderLines.id, lineNo: purchaseOrderLines.lineNo, partId: purchaseOrderLines.partId, sku: parts.sku, name: parts.name, supplierSku: purchaseOrderLines.supplierSku, qty: purchaseOrderLines.qty, received: purchaseOrderLines.received, unitCostCents: purchaseOrderLines.unitCostCents })
+      .select({ id: purchaseOrderLines.id, lineNo: purchaseOrderLines.lineNo, partId: purchaseOrderLines.partId, sku: parts.sku, name: parts.name, supplierSku: purchaseOrderLines.supplierSku, qty: purchaseOrderLines.qty, received: purchaseOrderLines.received, unitCostCents: purchaseOrderLines.unitCostCents, category: parts.category })
       .from(purchaseOrderLines)
       .innerJoin(parts, eq(parts.id, purchaseOrderLines.partId))
       .where(eq(purchaseOrderLines.purchaseOrderId, id))
@@ -242,7 +242,7 @@ export function createPurchaseOrderService({ db, now = () => new Date(), onPurch
               throw new ValidationError(`${line.sku} has no bin in ${po.warehouse} yet: name one for it, or a receiving bin.`, { fields: [{ path: `lines.${i}.bin`, message: 'Name the bin.' }] });
             });
           }
-          return { sku: line.sku, qty: l.qty, bin };
+          return { sku: line.sku, qty: l.qty, bin, ...(l.serials ? { serials: l.serials } : {}) };
         }),
       );
       return { warehouse: po.warehouse, reference: input.reference, purchaseOrder: po.number, lines };

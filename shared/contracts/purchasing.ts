@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { text } from './text.ts';
 import { CATEGORY_CODES } from './part-attributes.ts';
+import { SerialSchema } from './stock.ts';
 
 export const IMPORT_STATUSES = ['uploaded', 'staging', 'ready', 'applying', 'applied', 'failed'] as const;
 export type ImportStatus = (typeof IMPORT_STATUSES)[number];
@@ -255,7 +256,7 @@ export const DraftFromSuggestionsSchema = z.strictObject({
   lines: z.array(z.strictObject({ sku: text().trim().min(1).max(64).toUpperCase(), qty: z.number().int().min(1).max(1_000_000) })).min(1).max(500),
 });
 
-export const PoLineSchema = z.object({ id: text(), lineNo: z.number(), sku: text(), name: text(), supplierSku: text(), qty: z.number(), received: z.number(), unitCostCents: z.number().nullable(), lineCents: z.number().nullable() });
+export const PoLineSchema = z.object({ id: text(), lineNo: z.number(), sku: text(), name: text(), supplierSku: text(), qty: z.number(), received: z.number(), /** Received units each need a serial. */ serialised: z.boolean(), unitCostCents: z.number().nullable(), lineCents: z.number().nullable() });
 export const PurchaseOrderSchema = z.object({
   id: text(),
   number: text(),
@@ -284,6 +285,6 @@ export const PoReceiptSchema = z.strictObject({
   reference: text().trim().min(1).max(64).optional(),
   /** Where lines go that name no bin and whose part has no bin in the warehouse yet (a receiving bay). */
   fallbackBin: text().trim().min(1).max(32).toUpperCase().optional(),
-  lines: z.array(z.strictObject({ lineId: z.uuid(), qty: z.number().int().min(1).max(1_000_000), bin: text().trim().min(1).max(32).toUpperCase().optional() })).min(1).max(500),
+  lines: z.array(z.strictObject({ lineId: z.uuid(), qty: z.number().int().min(1).max(1_000_000), bin: text().trim().min(1).max(32).toUpperCase().optional(), serials: z.array(SerialSchema).max(1000).optional() })).min(1).max(500),
 });
 export type PoReceiptInput = z.infer<typeof PoReceiptSchema>;

@@ -78,6 +78,13 @@ describe('purchasing in the browser', () => {
     await waitForText(store.locator('main'), /Receive goods against this order/);
     expect(await store.locator('main').textContent()).not.toMatch(/each ·|Total \(inc GST\)/); // no costs for the warehouse
     await store.getByLabel('Receiving bin (parts with no bin here yet)').fill('DOCK-1');
+    // Serialised parts (modules, controllers, inverters) take one serial per unit received.
+    const serialBoxes = store.getByRole('textbox', { name: /^Serials of / });
+    for (let i = 0; i < (await serialBoxes.count()); i++) {
+      const box = serialBoxes.nth(i);
+      const units = Number(/\(\d+ of (\d+)\)/.exec((await box.getAttribute('aria-label')) ?? (await box.evaluate((el) => el.closest('label')?.textContent ?? '')))![1]);
+      await box.fill(Array.from({ length: units }, (_, k) => `PO${i}-E2E-${k + 1}`).join('\n'));
+    }
     await store.getByRole('button', { name: 'Book in' }).click();
     await waitForText(store.locator('main'), /Booked in as RCV-/);
     await waitForText(store.locator('main'), /Received/);

@@ -75,10 +75,13 @@ function ReceiveForm({ po, receive }: { po: PurchaseOrder; receive: ReturnType<t
   const [reference, setReference] = useState('');
   const [bins, setBins] = useState<Record<string, string>>({});
   const [fallbackBin, setFallbackBin] = useState('');
+  const [serials, setSerials] = useState<Record<string, string>>({});
+  /** A scanner ends each serial with Enter: one per line. */
+  const serialsOf = (id: string) => (serials[id] ?? '').split(/\s+/).filter(Boolean);
   const submit = (e: FormEvent) => {
     e.preventDefault();
     const lines = open
-      .map((l) => ({ lineId: l.id, qty: Number(qty[l.id] ?? 0), ...(bins[l.id]?.trim() ? { bin: bins[l.id]!.trim() } : {}) }))
+      .map((l) => ({ lineId: l.id, qty: Number(qty[l.id] ?? 0), ...(bins[l.id]?.trim() ? { bin: bins[l.id]!.trim() } : {}), ...(l.serialised ? { serials: serialsOf(l.id) } : {}) }))
       .filter((l) => Number.isInteger(l.qty) && l.qty > 0);
     if (lines.length) receive.mutate({ id: po.id, input: { lines, ...(reference.trim() ? { reference: reference.trim() } : {}), ...(fallbackBin.trim() ? { fallbackBin: fallbackBin.trim() } : {}) } });
   };
@@ -91,6 +94,12 @@ function ReceiveForm({ po, receive }: { po: PurchaseOrder; receive: ReturnType<t
             <label htmlFor={`rcv-${l.id}`} className="min-w-0 flex-1"><span className="num font-semibold">{l.sku}</span> <span className="text-ink-soft">({l.qty - l.received} expected)</span></label>
             <input id={`rcv-${l.id}`} inputMode="numeric" value={qty[l.id] ?? ''} onChange={(e) => setQty((q) => ({ ...q, [l.id]: e.target.value }))} className="num w-20 rounded border border-line bg-card px-2 py-1 text-right" />
             <input aria-label={`Bin for ${l.sku}`} placeholder="usual bin" value={bins[l.id] ?? ''} onChange={(e) => setBins((b) => ({ ...b, [l.id]: e.target.value }))} className="num w-24 rounded border border-line bg-card px-2 py-1" />
+            {l.serialised && (
+              <label className="block w-full text-xs text-ink-soft">
+                Serials of {l.sku}, one per line ({serialsOf(l.id).length} of {qty[l.id] || 0})
+                <textarea rows={2} value={serials[l.id] ?? ''} onChange={(e) => setSerials((s) => ({ ...s, [l.id]: e.target.value }))} className="num mt-1 block w-full rounded border border-line bg-card px-2 py-1 text-sm text-ink" />
+              </label>
+            )}
           </div>
         ))}
         <div className="flex flex-wrap items-end gap-3">
