@@ -23,7 +23,7 @@ import { createLabelsService, type LabelsService } from './services/labels.ts';
 import { createSupplierService, type SupplierService } from './services/suppliers.ts';
 import { createPriceListService, type PriceListService } from './services/price-lists.ts';
 import { createPricingService, type PricingService } from './services/pricing.ts';
-import { createPurchaseOrderService, onOrderFor, type PurchaseOrderService } from './services/purchase-orders.ts';
+import { createPurchaseOrderService, expectedArrivalsFor, onOrderFor, type PurchaseOrderService } from './services/purchase-orders.ts';
 
 /** The side effects the app is built from (context.ts reads them from the environment; tests make their own). */
 export interface AppOptions {
@@ -78,7 +78,7 @@ export function createServices(options: AppOptions): AppDeps {
   const purchaseOrders = createPurchaseOrderService({ db: options.db, now: options.now, onPurchaseOrderSent: (tx, po) => mail.purchaseOrderSent(tx, po.id).then(() => {}) });
   const planner = createPlannerService({ db: options.db, rangeCache, onRangeChanged: (tx, ids) => partsIndex.sync(tx, [...new Set(ids)]) });
   const appUrl = options.appUrl ?? options.trustedOrigins[0] ?? 'http://127.0.0.1:3000';
-  const mail = createMailService({ db: options.db, appUrl });
+  const mail = createMailService({ db: options.db, appUrl, expectedArrivals: expectedArrivalsFor });
   // Cancelling a paid job refunds it: the payment service is made after the jobs service it uses.
   const late: { payments?: PaymentService } = {};
   const jobs = createJobService({ db: options.db, planner, now: options.now, quoteHoldDays: options.quoteHoldDays, mail, onCancelled: (id) => late.payments!.refundJob(id) });

@@ -1,5 +1,5 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
-import type { Db, Tx } from '../db/client.ts';
+import type { Db, DbOrTx, Tx } from '../db/client.ts';
 import { partSupplierSkus, parts, purchaseOrderLines, purchaseOrders, suppliers, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
@@ -25,6 +25,20 @@ export async function onOrderFor(db: Db | Tx, opts: { includeDrafts?: boolean } 
     from purchase_order_lines l join purchase_orders o on o.id = l.purchase_order_id
     where o.status = any(${`{${statuses.join(',')}}`}::text[]) group by l.part_id, o.warehouse_id having sum(l.qty - l.received) > 0`);
   return new Map(rows.map((r) => [`${r.part_id}|${r.warehouse_id}`, r.qty]));
+}
+
+/**
+ * When short parts are expected, by part id: the soonest open purchase order still owing units —
+ * its expected date, else sent date plus the supplier's lead time. (The backorders e-mail says it.)
+ */
+export async function expectedArrivalsFor(db: DbOrTx, partIds: string[]) {
+  if (partIds.length === 0) return new Map<string, Date>();
+  const { rows } = await db.execute<{ part_id: string; at: Date }>(sql`
+    select l.part_id, min(coalesce(o.expected_at, o.sent_at + make_interval(days => s.lead_time_days))) as at
+    from purchase_order_lines l join purchase_orders o on o.id = l.purchase_order_id join suppliers s on s.id = o.supplier_id
+    where o.status in ('sent', 'part-received') and l.qty > l.received and l.part_id = any(${`{${[...new Set(partIds)].join(',')}}`}::uuid[])
+    group by l.part_id`);
+  return new Map<string, Date>(rows.filter((r) => r.at).map((r) => [r.part_id, new Date(r.at)]));
 }
 
 interface SupplierOption {

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { eq, sql } from 'drizzle-orm';
 import { createTestApp, type TestApp, type TestMail } from '../support/app.ts';
-import { makeCompany, makeStockPart, makeWarehouse, makeUser, putStock, DEMO_PASSWORD } from '../../seed/factories.ts';
+import { makeCompany, makeStockPart, makeSupplier, makeWarehouse, makeUser, putStock, DEMO_PASSWORD } from '../../seed/factories.ts';
 import { jobs, mailOutbox, stockLimits } from '../../server/db/schema/index.ts';
 import { enqueueMail } from '../../server/services/mail.ts';
 import { TEST_ORIGIN } from '../support/app.ts';
@@ -80,6 +80,22 @@ describe('messages about a job', () => {
     expect(got[0]!.text).toContain(`2 × ${scarce.sku}`);
     expect(got[0]!.text).not.toContain(plenty.sku);
     expect(got[0]!.text).toContain('expected: date to come');
+  });
+
+  it('says when a backordered part is expected: the soonest open purchase order still owing it', async () => {
+    const scarce = await part(0);
+    const supplier = await makeSupplier(t.db, { code: `EXP-${++seq}`, leadTimeDays: 10 });
+    // One order sent with an expected date (12 Jan 2027), a later one without (sent + 10 days lead time).
+    const { rows: [po] } = await t.db.execute<{ id: string }>(sql`insert into purchase_orders (number, supplier_id, warehouse_id, status, sent_at, expected_at) values (${`PO-EXP-${seq}`}, ${supplier.id}, ${warehouse.id}, 'sent', '2027-01-02T00:00:00Z', '2027-01-12T00:00:00Z') returning id`);
+    const { rows: [later] } = await t.db.execute<{ id: string }>(sql`insert into purchase_orders (number, supplier_id, warehouse_id, status, sent_at) values (${`PO-EXP-${seq}b`}, ${supplier.id}, ${warehouse.id}, 'sent', '2027-01-20T00:00:00Z') returning id`);
+    for (const o of [po!, later!]) await t.db.execute(sql`insert into purchase_order_lines (purchase_order_id, line_no, part_id, supplier_sku, qty, unit_cost_cents) values (${o.id}, 1, ${scarce.id}, 'X-1', 5, 100)`);
+    const job = await order([{ sku: scarce.sku, qty: 2 }]);
+    expect((await sales.post(`/api/jobs/${job.id}/reserve`)).status).toBe(200);
+    await mail.settled();
+    const got = (await inbox('ops@ironbark.test')).filter((m) => m.subject === `${job.reference}: some parts are on backorder`);
+    expect(got).toHaveLength(1);
+    // en-AU date in Melbourne time (CLDR, Node's ICU data): 12 Jan 2027 11:00 AEDT.
+    expect(got[0]!.text).toContain('expected: 12 Jan 2027');
   });
 
   it('ready for collection and dispatched go out when the status changes (the warehouse calls the hook)', async () => {
