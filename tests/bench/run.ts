@@ -270,7 +270,8 @@ const lines: Line[] = [];
 try {
   const run = async (bench: Promise<{ key: string; result: unknown; lines: Line[] }>) => {
     const done = await bench;
-    console.log(`  ${new Date().toISOString().slice(11, 19)} ${done.key} done`);
+    // Each figure as soon as it is known, so a later benchmark that fails or is stopped loses nothing.
+    console.log(`  ${new Date().toISOString().slice(11, 19)} ${done.key} done: ${done.lines.map((l) => `${l.figure} (target ${l.target})`).join('; ')}`);
     results[done.key] = done.result;
     lines.push(...done.lines);
   };
