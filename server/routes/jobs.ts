@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { text } from '@shared/contracts/text.ts';
+import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
 import { CreateJobSchema, JobListQuerySchema, JobListSchema, JobSchema } from '@shared/contracts/jobs.ts';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
@@ -7,7 +7,6 @@ import { presentJob, presentJobSummary } from '../presenters/jobs.ts';
 import { sendCsv } from '../http/csv.ts';
 import { JOB_STATUS_LABELS } from '@shared/contracts/jobs.ts';
 
-const IdParams = z.object({ id: text().min(1).max(64) });
 const JobResponse = z.object({ data: JobSchema });
 
 export function jobRoutes(api: Api, { jobs }: Pick<AppDeps, 'jobs'>) {

@@ -1,11 +1,10 @@
 import { z } from 'zod';
-import { text } from '@shared/contracts/text.ts';
+import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
 import { OutboxListSchema, OutboxMessageSchema, OutboxQuerySchema } from '@shared/contracts/mail.ts';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
 import { presentOutboxMessage, presentOutboxRow } from '../presenters/mail.ts';
 
-const IdParams = z.object({ id: text().min(1).max(64) });
 
 export function mailRoutes(api: Api, { mail }: Pick<AppDeps, 'mail'>) {
   api.route({ method: 'get', path: '/admin/outbox', summary: 'Messages the app has sent or is sending, newest first (filter by recipient)', tag: 'mail', ability: 'outbox.view', query: OutboxQuerySchema, response: OutboxListSchema }, async ({ actor, query }) => {

@@ -1,12 +1,11 @@
 import express from 'express';
+import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
 import { z } from 'zod';
-import { text } from '@shared/contracts/text.ts';
 import { StartPaymentResponseSchema } from '@shared/contracts/payments.ts';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
 import { renderInvoicePdf } from '../documents/invoice-pdf.ts';
 
-const IdParams = z.object({ id: text().min(1).max(64) });
 
 /**
  * The provider's webhook reads the raw body (the signature is computed over its exact bytes), so

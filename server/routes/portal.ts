@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { text } from '@shared/contracts/text.ts';
+import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
 import { JobSchema } from '@shared/contracts/jobs.ts';
 import { StackPlanRequestSchema } from '@shared/contracts/stack-plans.ts';
 import { PlanAlternativesSchema, PortalSummarySchema } from '@shared/contracts/portal.ts';
@@ -7,7 +7,6 @@ import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
 import { presentJob } from '../presenters/jobs.ts';
 
-const IdParams = z.object({ id: text().min(1).max(64) });
 
 export function portalRoutes(api: Api, { portal, jobs }: Pick<AppDeps, 'portal' | 'jobs'>) {
   api.route({ method: 'get', path: '/portal/summary', summary: 'Jobs by status and the ones needing attention (unpaid, backordered, ready, quote lapsing); installers: their own company', tag: 'portal', ability: 'jobs.view', response: z.object({ data: PortalSummarySchema }) }, async ({ actor }) => ({

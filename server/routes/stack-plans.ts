@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
 import { text } from '@shared/contracts/text.ts';
 import { InverterOptionSchema, RangeDetailSchema, RangeInputSchema, SavedPlanSchema, SavePlanSchema, StackPlanRequestSchema, StackPlanSchema, type StackPlanResult } from '@shared/contracts/stack-plans.ts';
 import { sendCsv } from '../http/csv.ts';
@@ -8,7 +9,6 @@ import type { AppDeps } from '../deps.ts';
 import { renderPlanPdf } from '../documents/plan-pdf.ts';
 import { bomCsvRows, presentRangeDetail, presentSavedPlan } from '../presenters/stack-plans.ts';
 
-const IdParams = z.object({ id: text().min(1).max(64) });
 
 function sendBomCsv(res: Response, plan: StackPlanResult, fileName: string) {
   sendCsv(res, bomCsvRows(plan), fileName);

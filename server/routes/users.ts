@@ -1,11 +1,10 @@
 import { z } from 'zod';
-import { text } from '@shared/contracts/text.ts';
+import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
 import { CompanyOptionSchema, CreateUserSchema, ResetPasswordSchema, UpdateUserSchema, UserListQuerySchema, UserRowSchema } from '@shared/contracts/users.ts';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
 import { presentUser } from '../presenters/users.ts';
 
-const IdParams = z.object({ id: text().min(1).max(64) });
 const one = z.object({ data: UserRowSchema });
 
 export function userRoutes(api: Api, { users }: Pick<AppDeps, 'users'>) {

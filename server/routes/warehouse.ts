@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
 import type { Response } from 'express';
 import { text } from '@shared/contracts/text.ts';
 import { HandoverSchema, LabelLayoutQuerySchema, LabelPngQuerySchema, LabelSchema, PickCompleteResultSchema, PickListSchema, PickQueueItemSchema, PickScanResultSchema, PickScanSchema } from '@shared/contracts/warehouse.ts';
@@ -9,7 +10,6 @@ import { renderLabelsPdf } from '../documents/labels-pdf.ts';
 import { renderHandoverPdf } from '../documents/handover-pdf.ts';
 import { fileStem, presentLabel } from '../presenters/warehouse.ts';
 
-const IdParams = z.object({ id: text().min(1).max(64) });
 const LabelParams = z.object({ id: text().min(1).max(64), n: z.coerce.number().int().min(1).max(100_000) });
 const PickListResponse = z.object({ data: PickListSchema });
 

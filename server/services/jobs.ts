@@ -1,5 +1,7 @@
 import { and, asc, desc, eq, gte, ilike, lt, sql, type SQL } from 'drizzle-orm';
+import { likeLiteral } from '../db/like.ts';
 import type { Db, Tx } from '../db/client.ts';
+import { pgCode, isUuid } from '../db/errors.ts';
 import { companies, jobLines, jobPlans, jobs, jobStatusHistory, reservations, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { assertCanSeeCompany, companyForNew, companyScopeOf, isCompanyBound } from '../policies/company-scope.ts';
@@ -27,13 +29,10 @@ export interface JobDeps {
   onCancelled?: (jobId: string) => Promise<void>;
 }
 
-const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const BEFORE_PICKING: JobStatus[] = ['draft', 'ordered', 'reserved', 'part-reserved'];
 /** Card accounts pay to place the order (a draft); what the desk orders for them it settles itself. A job is invoiced once ordered. */
 export const PAYABLE: JobStatus[] = ['draft'];
 export const INVOICED: JobStatus[] = ['ordered', 'reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected', 'closed'];
-const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
-
 type JobRow = typeof jobs.$inferSelect;
 
 export function createJobService({ db, planner, now = () => new Date(), quoteHoldDays = 7, mail, onCancelled }: JobDeps) {
@@ -41,7 +40,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
   const jobByIdQuery = db.select().from(jobs).where(eq(jobs.id, sql.placeholder('id'))).prepare('job_by_id');
   /** The job if the actor may see it; another company's job is "not found". */
   async function visibleJob(actor: Actor, id: string, tx: Db | Tx = db): Promise<JobRow> {
-    if (!UUID_RE.test(id)) throw new NotFoundError('That job');
+    if (!isUuid(id)) throw new NotFoundError('That job');
     const [row] = tx === db ? await jobByIdQuery.execute({ id }) : await tx.select().from(jobs).where(eq(jobs.id, id));
     if (!row) throw new NotFoundError('That job');
     assertCanSeeCompany(actor, row.companyId, 'That job');
@@ -114,7 +113,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
 
   async function detail(actor: Actor, id: string) {
     authorize(actor, 'jobs.view');
-    if (!UUID_RE.test(id)) throw new NotFoundError('That job');
+    if (!isUuid(id)) throw new NotFoundError('That job');
     const [head] = await jobDetailQuery.execute({ id });
     if (!head) throw new NotFoundError('That job');
     assertCanSeeCompany(actor, head.job.companyId, 'That job');
@@ -259,7 +258,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       if (scope) where.push(eq(jobs.companyId, scope));
       else if (q.companyId) where.push(eq(jobs.companyId, q.companyId));
       if (q.status) where.push(eq(jobs.status, q.status));
-      if (q.q) where.push(ilike(jobs.reference, `%${q.q.replace(/[%_\\]/g, '\\$&')}%`));
+      if (q.q) where.push(ilike(jobs.reference, `%${likeLiteral(q.q)}%`));
       if (q.from) where.push(gte(jobs.createdAt, new Date(`${q.from}T00:00:00Z`)));
       if (q.to) where.push(lt(jobs.createdAt, new Date(new Date(`${q.to}T00:00:00Z`).getTime() + 86_400_000)));
       const cond = where.length ? and(...where) : undefined;

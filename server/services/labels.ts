@@ -2,6 +2,7 @@
 // encodes. Pick labels per line (per unit for serialised parts); kit labels per parcel with an
 // SSCC from the database sequence and a QR code to the job's page.
 import { eq, sql } from 'drizzle-orm';
+import { isUuid } from '../db/errors.ts';
 import type { Db } from '../db/client.ts';
 import { jobParcels, settings, ssccSerialSequence } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
@@ -39,7 +40,6 @@ export interface BuiltLabel {
   lithium: boolean;
 }
 
-const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const LABELLED: JobStatus[] = ['reserved', 'part-reserved', 'picking', 'ready', 'dispatched', 'collected', 'closed'];
 
 /**
@@ -67,7 +67,7 @@ function symbolFor(gtin: string | null, extra: Gs1Field[], sku: string) {
 
 export function createLabelsService({ db, planner, publicUrl, now = () => new Date() }: LabelsDeps) {
   async function visiblePick(actor: Actor, jobId: string) {
-    if (!UUID_RE.test(jobId)) throw new NotFoundError('That job');
+    if (!isUuid(jobId)) throw new NotFoundError('That job');
     const pick = await loadPick(db, jobId);
     if (!pick) throw new NotFoundError('That job');
     assertCanSeeCompany(actor, pick.job.company_id, 'That job');

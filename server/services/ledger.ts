@@ -9,6 +9,7 @@
 // into a new bin and a reservation of the same part could each miss the other's uncommitted row
 // (units left free while a backorder waits). Reservations are only written under these locks.
 import { randomBytes } from 'node:crypto';
+import { pgCode, pgConstraint } from '../db/errors.ts';
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { executePrepared, type Db, type DbOrTx, type Tx } from '../db/client.ts';
 import { backorders, defaultBins, jobLines, jobs, jobStatusHistory, parts, reservations, stockMovements, warehouses } from '../db/schema/index.ts';
@@ -30,14 +31,6 @@ const keyOf = (k: LevelKey) => `${k.partId}|${k.warehouseId}|${k.bin}`;
 // the lowercase strings; bins are text compared under the "C" collation below.
 const compareKeys = (a: LevelKey, b: LevelKey) => (a.partId < b.partId ? -1 : a.partId > b.partId ? 1 : a.warehouseId < b.warehouseId ? -1 : a.warehouseId > b.warehouseId ? 1 : a.bin < b.bin ? -1 : a.bin > b.bin ? 1 : 0);
 
-const pgCode = (e: unknown): string | undefined => {
-  const x = e as { code?: string; cause?: { code?: string } };
-  return x?.cause?.code ?? x?.code;
-};
-const pgConstraint = (e: unknown): string | undefined => {
-  const x = e as { constraint?: string; cause?: { constraint?: string } };
-  return x?.cause?.constraint ?? x?.constraint;
-};
 
 /**
  * Runs `fn` in one transaction and runs it again when PostgreSQL gives up on it for a reason

@@ -3,6 +3,8 @@
 // the mail queue (server/jobs/mail-queue.ts), which sends it with retries. A refused or slow SMTP
 // server therefore never blocks or undoes the business action.
 import { and, desc, eq, ilike, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { likeLiteral } from '../db/like.ts';
+import { isUuid } from '../db/errors.ts';
 import type { Transporter } from 'nodemailer';
 import type { Db, DbOrTx } from '../db/client.ts';
 import { companies, jobs, mailOutbox, user } from '../db/schema/index.ts';
@@ -17,8 +19,6 @@ import { render, type MailData } from '../mail/templates.ts';
 /** The channel the mail queue listens on; the payload is the outbox row's id. */
 export const MAIL_CHANNEL = 'stackyard_mail';
 export const MAIL_FROM = 'Stackyard <trade-desk@stackyard.test>';
-
-const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export interface Outgoing<E extends MailEvent> {
   event: E;
@@ -173,7 +173,7 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
     async outbox(actor: Actor, q: OutboxQuery) {
       authorize(actor, 'outbox.view');
       const where: SQL[] = [];
-      if (q.to) where.push(ilike(mailOutbox.to, `%${q.to.replace(/[%_\\]/g, '\\$&')}%`));
+      if (q.to) where.push(ilike(mailOutbox.to, `%${likeLiteral(q.to)}%`));
       const cond = where.length ? and(...where) : undefined;
       const [rows, [count]] = await Promise.all([
         db
@@ -190,7 +190,7 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
 
     async outboxMessage(actor: Actor, id: string) {
       authorize(actor, 'outbox.view');
-      if (!UUID_RE.test(id)) throw new NotFoundError('That message');
+      if (!isUuid(id)) throw new NotFoundError('That message');
       const [row] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, id));
       if (!row) throw new NotFoundError('That message');
       return row;

@@ -2,6 +2,7 @@
 // id, pause and resume by anyone in the warehouse, and completion issuing the stock in one
 // transaction (ledger pick-issue movements, reservations consumed, serials attached, job ready).
 import type { MailService } from './mail.ts';
+import { pgCode, isUuid } from '../db/errors.ts';
 import { eq, sql } from 'drizzle-orm';
 import type { Db, DbOrTx, Tx } from '../db/client.ts';
 import { jobs, jobStatusHistory, partSerials, pickScans, pickSessions, reservations } from '../db/schema/index.ts';
@@ -21,7 +22,6 @@ export interface PickingDeps {
   mail?: Pick<MailService, 'jobStatusChanged'>;
 }
 
-const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 /** Statuses a job can be picked in. */
 const PICKABLE: JobStatus[] = ['reserved', 'picking'];
 /** Statuses after a completed pick: completing again changes nothing. */
@@ -145,11 +145,9 @@ function nextExpected(lines: LoadedLine[]) {
     .join('; ');
 }
 
-const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
-
 export function createPickingService({ db, now = () => new Date(), mail }: PickingDeps) {
   async function visible(actor: Actor, jobId: string, q: DbOrTx = db) {
-    if (!UUID_RE.test(jobId)) throw new NotFoundError('That job');
+    if (!isUuid(jobId)) throw new NotFoundError('That job');
     const pick = await loadPick(q, jobId);
     if (!pick) throw new NotFoundError('That job');
     assertCanSeeCompany(actor, pick.job.company_id, 'That job');

@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, inArray, or, sql } from 'drizzle-orm';
 import type { Db, Tx } from '../db/client.ts';
+import { isUuid } from '../db/errors.ts';
 import { companies, makers, parts, rangeInverters, ranges, stackPlans, stockLevels, user, warehouses } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { companyForNew, companyScopeOf, isCompanyBound } from '../policies/company-scope.ts';
@@ -14,8 +15,6 @@ import { discountedCents } from '@shared/domain/pricing.ts';
 import { customerDiscountPct } from './pricing.ts';
 
 type PartRow = typeof parts.$inferSelect;
-const UUID_RE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 function unitFrom(p: PartRow): PlannerUnit {
   const a = p.attributes as Record<string, unknown>;
   const n = (k: string) => (typeof a[k] === 'number' ? (a[k] as number) : null);
@@ -84,7 +83,7 @@ async function readRange(db: Db, idOrCode: string) {
     .select({ range: ranges, makerCode: makers.code, makerName: makers.name })
     .from(ranges)
     .innerJoin(makers, eq(makers.id, ranges.makerId))
-    .where(UUID_RE.test(idOrCode) ? eq(ranges.id, idOrCode) : eq(ranges.code, idOrCode));
+    .where(isUuid(idOrCode) ? eq(ranges.id, idOrCode) : eq(ranges.code, idOrCode));
   if (!row) throw new NotFoundError('That range');
   const r = row.range;
   const rules = BomRulesSchema.parse(r.rules);
@@ -254,7 +253,7 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
 
     async findPlan(actor: Actor, id: string) {
       authorize(actor, 'plans.create');
-      if (!UUID_RE.test(id)) throw new NotFoundError('That plan');
+      if (!isUuid(id)) throw new NotFoundError('That plan');
       const [row] = await db
         .select(planColumns)
         .from(stackPlans)

@@ -1,5 +1,6 @@
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db, DbOrTx, Tx } from '../db/client.ts';
+import { pgCode } from '../db/errors.ts';
 import { companies, customerTiers, partPricing, parts, priceMoves, priceRecomputes, pricingRules, user } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { assertCanSeeCompany, companyScopeOf } from '../policies/company-scope.ts';
@@ -20,8 +21,6 @@ export interface SellPrice {
   /** What this customer pays per unit ex GST; null when the part has no list price. */
   sellCents: number | null;
 }
-
-const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
 
 /**
  * The customer's discount: their tier's when they have one, else the discount on the account.

@@ -1,5 +1,7 @@
 import { and, asc, desc, eq, gte, ilike, inArray, lt, sql, type SQL } from 'drizzle-orm';
+import { likeLiteral } from '../db/like.ts';
 import type { Db, Tx } from '../db/client.ts';
+import { pgCode } from '../db/errors.ts';
 import { bins, companies, defaultBins, jobs, parts, partSerials, stockLevels, stockLimits, stockMovements, user, warehouses } from '../db/schema/index.ts';
 import { isSerialised } from '@shared/domain/warehouse.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
@@ -15,8 +17,6 @@ export interface StockDeps {
   /** Units on open purchase orders per `${partId}|${warehouseId}` (purchasing provides it). */
   onOrder?: (db: Db) => Promise<Map<string, number>>;
 }
-
-const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
 
 /** The stock ledger as the only way stock changes: every change is a movement plus its level row, in one transaction. */
 export function createStockService({ db, now = () => new Date(), onPurchaseOrderReceipt, onOrder }: StockDeps) {
@@ -71,7 +71,7 @@ export function createStockService({ db, now = () => new Date(), onPurchaseOrder
     async levels(actor: Actor, q: StockQuery) {
       authorize(actor, 'stock.view');
       const where: SQL[] = [];
-      if (q.sku) where.push(ilike(parts.sku, `${q.sku.replace(/[%_\\]/g, '\\$&')}%`));
+      if (q.sku) where.push(ilike(parts.sku, `${likeLiteral(q.sku)}%`));
       if (q.warehouse) where.push(eq(warehouses.code, q.warehouse.toUpperCase()));
       const cond = where.length ? and(...where) : undefined;
       const [rows, [count], ordered] = await Promise.all([

@@ -1,12 +1,11 @@
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.ts';
+import { pgCode } from '../db/errors.ts';
 import { partSupplierSkus, parts, priceListImports, supplierPartPrices, suppliers, user } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
 import type { SupplierInput, SupplierPartInput } from '@shared/contracts/purchasing.ts';
 import type { PartsIndex } from '../search/parts-index.ts';
-
-const pgCode = (e: unknown) => (e as { cause?: { code?: string } })?.cause?.code ?? (e as { code?: string })?.code;
 
 /** Suppliers, their terms and the parts they sell us (supplier SKU, pack, MOQ, cost, breaks), with each cost's history. */
 export function createSupplierService({ db, partsIndex }: { db: Db; partsIndex: PartsIndex }) {

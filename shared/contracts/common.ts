@@ -40,3 +40,6 @@ export const PageQuerySchema = z.object({
   page: z.coerce.number().int().min(1).max(10_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 });
+
+/** `:id` in a path. Services answer 404 for an id that names nothing (no 400 for a malformed one). */
+export const IdParamsSchema = z.object({ id: text().min(1).max(64) });
