@@ -2,13 +2,13 @@
 // the date and the installation cautions. Black and white, A4.
 import { PDFDocument, StandardFonts, rgb, type PDFFont } from 'pdf-lib';
 import type { Handover } from '@shared/contracts/warehouse.ts';
-import { winAnsi } from './plan-pdf.ts';
+import { wrapText } from './pdf-text.ts';
+import { businessDate } from '../lib/dates.ts';
 
 const A4: [number, number] = [595.28, 841.89];
 const MARGIN = 48;
 const INK = rgb(0, 0, 0);
 
-const DATE = new Intl.DateTimeFormat('en-AU', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'Australia/Melbourne' });
 
 export async function renderHandoverPdf(h: Handover) {
   const doc = await PDFDocument.create();
@@ -27,21 +27,8 @@ export async function renderHandoverPdf(h: Handover) {
       y = A4[1] - MARGIN;
     }
   };
-  const wrap = (s: string, size: number, font: PDFFont, w = width) => {
-    const out: string[] = [];
-    let line = '';
-    for (const word of winAnsi(s).split(/\s+/)) {
-      const next = line ? `${line} ${word}` : word;
-      if (line && font.widthOfTextAtSize(next, size) > w) {
-        out.push(line);
-        line = word;
-      } else line = next;
-    }
-    if (line) out.push(line);
-    return out;
-  };
   const para = (s: string, size = 10, font: PDFFont = regular, indent = 0) => {
-    for (const line of wrap(s, size, font, width - indent)) {
+    for (const line of wrapText(s, width - indent, size, font)) {
       ensure(size * 1.4);
       page.drawText(line, { x: MARGIN + indent, y, size, font, color: INK });
       y -= size * 1.4;
@@ -58,7 +45,7 @@ export async function renderHandoverPdf(h: Handover) {
   para('Handover sheet', 20, bold);
   para(`Job ${h.job.reference}  ·  ${h.job.company}`, 12, bold);
   para(`Site: ${[h.job.siteSuburb, h.job.sitePostcode].filter(Boolean).join(' ') || 'not given'}${h.job.contact ? `  ·  Contact: ${h.job.contact}` : ''}`);
-  para(`Date: ${DATE.format(new Date(h.date))}`);
+  para(`Date: ${businessDate(h.date)}`);
 
   heading('System');
   if (h.systems.length === 0) para('This job was not made from a stack plan: see the parts below.');

@@ -1,6 +1,7 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont } from 'pdf-lib';
 import { formatCents } from '@shared/domain/money.ts';
-import { winAnsi } from './plan-pdf.ts';
+import { fitText, winAnsi } from './pdf-text.ts';
+import { businessDate } from '../lib/dates.ts';
 
 const A4: [number, number] = [595.28, 841.89];
 const MARGIN = 42;
@@ -30,7 +31,6 @@ export interface InvoiceDoc {
 /** The ATO's threshold from which a tax invoice must identify the buyer (domain.md §5). */
 export const BUYER_IDENTITY_FROM_CENTS = 100_000;
 
-const dateText = (d: Date) => d.toLocaleDateString('en-AU', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'Australia/Melbourne' });
 
 /**
  * A tax invoice (domain.md §5): the words "Tax invoice", the seller and its ABN, the date, each
@@ -48,16 +48,12 @@ export async function renderInvoicePdf(inv: InvoiceDoc): Promise<Uint8Array> {
   const right = A4[0] - MARGIN;
   const text = (s: string, x: number, size = 10, font: PDFFont = regular, color = INK) => page.drawText(winAnsi(s), { x, y, size, font, color });
   const textRight = (s: string, x: number, size = 10, font: PDFFont = regular) => page.drawText(winAnsi(s), { x: x - font.widthOfTextAtSize(winAnsi(s), size), y, size, font, color: INK });
-  const fit = (s: string, width: number, size = 9) => {
-    let t = winAnsi(s);
-    while (t.length > 1 && regular.widthOfTextAtSize(t, size) > width) t = t.slice(0, -2) + '…';
-    return t;
-  };
+  const fit = (s: string, width: number, size = 9) => fitText(s, width, size, regular);
 
   text('Tax invoice', MARGIN, 22, bold);
   textRight(`No. ${inv.number}`, right, 12, bold);
   y -= 18;
-  textRight(`Date: ${dateText(inv.issuedAt)}`, right, 10);
+  textRight(`Date: ${businessDate(inv.issuedAt, 'long')}`, right, 10);
   y -= 26;
 
   const party = (label: string, p: InvoiceParty, x: number) => {

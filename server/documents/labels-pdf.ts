@@ -2,7 +2,7 @@
 // 100 × 150 mm label per page for a thermal printer. Black and white; barcodes as vector shapes.
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { barcodeVector, drawBarcode, type BarcodeSpec, type VectorBarcode } from './barcodes.ts';
-import { winAnsi } from './plan-pdf.ts';
+import { fitText, winAnsi } from './pdf-text.ts';
 
 const MM = 72 / 25.4;
 const BLACK = rgb(0, 0, 0);
@@ -21,10 +21,8 @@ export type LabelLayout = keyof typeof LAYOUTS;
 
 /** The text at a size that fits the width: shrunk to at most 80 % of `size`, then cut with an ellipsis. */
 function fit(font: PDFFont, s: string, size: number, width: number) {
-  let t = winAnsi(s);
-  const fitted = Math.max(size * 0.8, Math.min(size, width / Math.max(1, font.widthOfTextAtSize(t, 1))));
-  while (t.length > 1 && font.widthOfTextAtSize(t, fitted) > width) t = t.slice(0, -2) + '…';
-  return { text: t, size: fitted };
+  const fitted = Math.max(size * 0.8, Math.min(size, width / Math.max(1, font.widthOfTextAtSize(winAnsi(s), 1))));
+  return { text: fitText(s, width, fitted, font), size: fitted };
 }
 
 export async function renderLabelsPdf(labels: SheetLabel[], layout: LabelLayout, title: string) {

@@ -1,25 +1,14 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import type { StackPlanResult } from '@shared/contracts/stack-plans.ts';
 import { formatCents } from '@shared/domain/money.ts';
+import { businessDate } from '../lib/dates.ts';
+import { winAnsi, wrapText } from './pdf-text.ts';
 import { COUNTRY_LABELS, FLOOR_LABELS, LOCATION_LABELS, WALL_LABELS } from '@shared/domain/site.ts';
 
 const A4: [number, number] = [595.28, 841.89];
 const MARGIN = 42;
 const INK = rgb(0.11, 0.14, 0.19);
 const GREY = rgb(0.35, 0.38, 0.42);
-
-/** The standard PDF fonts speak WinAnsi only: spell out the few symbols they lack. */
-export function winAnsi(text: string) {
-  return text
-    .replace(/≤/g, '<=')
-    .replace(/≥/g, '>=')
-    .replace(/→/g, '->')
-    .replace(/≈/g, '~')
-    .replace(/√/g, 'sqrt')
-    .replace(/[‘’]/g, "'")
-    .replace(/[“”]/g, '"')
-    .replace(/[^\x20-\x7e\u00a0-\u00ff\u2013\u2014\u2022\u2026\u20ac]/g, '?');
-}
 
 const num = (n: number | null, digits = 1) => (n === null ? '—' : n.toLocaleString('en-AU', { maximumFractionDigits: digits, minimumFractionDigits: 0 }));
 
@@ -41,38 +30,12 @@ export async function renderPlanPdf(plan: StackPlanResult, meta: { title: string
   };
   const text = (p: PDFPage, s: string, x: number, yy: number, size: number, font: PDFFont = regular, color = INK) =>
     p.drawText(winAnsi(s), { x, y: yy, size, font, color });
-  /** Lines that fit `width`: words wrap, and a word wider than the line is broken, never cut off. */
-  const wrap = (s: string, width: number, size: number, font: PDFFont = regular) => {
-    const fits = (t: string) => font.widthOfTextAtSize(t, size) <= width;
-    const words = winAnsi(s).split(/\s+/).filter(Boolean).flatMap((w) => {
-      if (fits(w)) return [w];
-      const pieces: string[] = [];
-      let piece = '';
-      for (const ch of w) {
-        if (piece && !fits(piece + ch)) {
-          pieces.push(piece);
-          piece = ch;
-        } else piece += ch;
-      }
-      return piece ? [...pieces, piece] : pieces;
-    });
-    const lines: string[] = [];
-    let line = '';
-    for (const w of words) {
-      const next = line ? `${line} ${w}` : w;
-      if (!fits(next) && line) {
-        lines.push(line);
-        line = w;
-      } else line = next;
-    }
-    if (line) lines.push(line);
-    return lines;
-  };
+  const wrap = (s: string, width: number, size: number, font: PDFFont = regular) => wrapText(s, width, size, font);
   const money = (cents: number | null) => (cents == null ? '—' : formatCents(cents));
   const right = (p: PDFPage, s: string, xRight: number, yy: number, size: number, font: PDFFont = regular) => text(p, s, xRight - font.widthOfTextAtSize(winAnsi(s), size), yy, size, font);
 
   text(page, 'Stackyard · stack plan', MARGIN, y, 9, regular, GREY);
-  text(page, meta.date.toLocaleDateString('en-AU', { day: 'numeric', month: 'short', year: 'numeric' }), A4[0] - MARGIN - 80, y, 9, regular, GREY);
+  text(page, businessDate(meta.date), A4[0] - MARGIN - 80, y, 9, regular, GREY);
   y -= 22;
   text(page, meta.title, MARGIN, y, 18, bold);
   y -= 18;

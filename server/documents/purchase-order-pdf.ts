@@ -1,7 +1,8 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import type { PurchaseOrder } from '@shared/contracts/purchasing.ts';
 import { formatCents } from '@shared/domain/money.ts';
-import { winAnsi } from './plan-pdf.ts';
+import { fitText, winAnsi } from './pdf-text.ts';
+import { businessDate } from '../lib/dates.ts';
 
 const A4: [number, number] = [595.28, 841.89];
 const MARGIN = 42;
@@ -19,11 +20,7 @@ export async function renderPurchaseOrderPdf(po: PurchaseOrder, meta: { buyer: s
   let y = A4[1] - MARGIN;
   const text = (p: PDFPage, s: string, x: number, yy: number, size: number, font: PDFFont = regular, color = INK) => p.drawText(winAnsi(s), { x, y: yy, size, font, color });
   const right = (s: string, xRight: number, size: number, font: PDFFont = regular) => text(page, s, xRight - font.widthOfTextAtSize(winAnsi(s), size), y, size, font);
-  const fit = (s: string, width: number, size: number) => {
-    let t = winAnsi(s);
-    while (t.length > 1 && regular.widthOfTextAtSize(t, size) > width) t = t.slice(0, -2) + '…';
-    return t;
-  };
+  const fit = (s: string, width: number, size: number) => fitText(s, width, size, regular);
   const money = (c: number | null) => (c === null ? '—' : formatCents(c));
 
   text(page, `${meta.buyer} · purchase order`, MARGIN, y, 9, regular, GREY);
@@ -34,7 +31,7 @@ export async function renderPurchaseOrderPdf(po: PurchaseOrder, meta: { buyer: s
   y -= 15;
   text(page, `Deliver to: ${meta.deliverTo}`, MARGIN, y, 11);
   y -= 15;
-  text(page, `Date: ${meta.date.toLocaleDateString('en-AU', { day: 'numeric', month: 'short', year: 'numeric' })}`, MARGIN, y, 11);
+  text(page, `Date: ${businessDate(meta.date)}`, MARGIN, y, 11);
   if (po.note) {
     y -= 15;
     text(page, fit(`Note: ${po.note}`, A4[0] - 2 * MARGIN, 10), MARGIN, y, 10);

@@ -1,5 +1,6 @@
 // Tax invoices for jobs: numbered and dated the first time one is issued, then always the same.
 import { and, eq, inArray } from 'drizzle-orm';
+import { businessDate } from '../lib/dates.ts';
 import type { Db } from '../db/client.ts';
 import { companies, invoices, payments } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
@@ -9,7 +10,6 @@ import type { InvoiceDoc } from '../documents/invoice-pdf.ts';
 import { INVOICED, type JobService } from './jobs.ts';
 
 const place = (c: { suburb: string | null; postcode: string | null }) => [c.suburb, c.postcode].filter(Boolean).join(' ') || null;
-const dateText = (d: Date) => d.toLocaleDateString('en-AU', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'Australia/Melbourne' });
 
 export function createInvoiceService({ db, jobs }: { db: Db; jobs: Pick<JobService, 'detail'> }) {
   return {
@@ -30,7 +30,7 @@ export function createInvoiceService({ db, jobs }: { db: Db; jobs: Pick<JobServi
       // GST on the invoice total (s 9-90), the method the job page uses.
       const gst = invoiceGst(lines.map((l) => ({ exCents: l.unitExCents, qty: l.qty })), 'per-invoice');
       const card = paid[0];
-      const paymentNote = card?.paidAt ? `Paid by card on ${dateText(card.paidAt)}${card.status === 'refunded' ? '; refunded when the job was cancelled' : ''}.` : buyer?.accountType === 'cash' ? 'Payable by card before the order is released.' : 'Charged to your trade account on its agreed terms.';
+      const paymentNote = card?.paidAt ? `Paid by card on ${businessDate(card.paidAt)}${card.status === 'refunded' ? '; refunded when the job was cancelled' : ''}.` : buyer?.accountType === 'cash' ? 'Payable by card before the order is released.' : 'Charged to your trade account on its agreed terms.';
       return {
         number: `SY-${String(inv!.number).padStart(6, '0')}`,
         issuedAt: inv!.issuedAt,

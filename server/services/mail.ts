@@ -3,6 +3,7 @@
 // the mail queue (server/jobs/mail-queue.ts), which sends it with retries. A refused or slow SMTP
 // server therefore never blocks or undoes the business action.
 import { and, desc, eq, ilike, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { businessDate } from '../lib/dates.ts';
 import { likeLiteral } from '../db/like.ts';
 import { isUuid } from '../db/errors.ts';
 import type { Transporter } from 'nodemailer';
@@ -49,7 +50,6 @@ export interface MailDeps {
   expectedArrivals?: ExpectedArrivals;
 }
 
-const dateText = (d: Date) => d.toLocaleDateString('en-AU', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'Australia/Melbourne' });
 
 export function createMailService({ db, appUrl, expectedArrivals = noExpectedDates }: MailDeps) {
   const jobUrl = (id: string) => `${appUrl}/jobs/${id}`;
@@ -116,7 +116,7 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
       if (short.length === 0) return [];
       const { job, to } = await jobAudience(tx, jobId);
       const expected = await expectedArrivals(tx, short.map((l) => l.partId));
-      const lines = short.map((l) => ({ sku: l.sku, name: l.name, qty: l.backordered, expected: expected.has(l.partId) ? dateText(expected.get(l.partId)!) : null }));
+      const lines = short.map((l) => ({ sku: l.sku, name: l.name, qty: l.backordered, expected: expected.has(l.partId) ? businessDate(expected.get(l.partId)!) : null }));
       return toAll(tx, to, 'backorders', { reference: job.reference, lines, url: jobUrl(jobId) }, { jobId });
     },
 
@@ -166,7 +166,7 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
           order by p.sku`);
         if (rows.length === 0) return [];
         const to = await this.staffAddresses(tx, ['purchasing']);
-        return toAll(tx, to, 'low-stock-digest', { date: dateText(at), lines: rows, url: `${appUrl}/stock` }, { digest: at.toISOString().slice(0, 10) });
+        return toAll(tx, to, 'low-stock-digest', { date: businessDate(at), lines: rows, url: `${appUrl}/stock` }, { digest: at.toISOString().slice(0, 10) });
       });
     },
 

@@ -6,7 +6,7 @@ import { pdfText } from '../support/pdf-text.ts';
 import { createTestApp, type TestApp } from '../support/app.ts';
 import { seedCatalogue } from '../../seed/catalogue.ts';
 import { parts as demoParts } from '../../seed/data/catalogue.ts';
-import { winAnsi } from '../../server/documents/plan-pdf.ts';
+import { winAnsi } from '../../server/documents/pdf-text.ts';
 
 let t: TestApp;
 beforeAll(async () => {
