@@ -1,5 +1,6 @@
 import type { Job, JobSummary } from '@shared/contracts/jobs.ts';
-import { invoiceGst, lineTotalCents } from '@shared/domain/money.ts';
+import { lineTotalCents } from '@shared/domain/money.ts';
+import { jobTotals } from '@shared/domain/quote.ts';
 import type { JobService } from '../services/jobs.ts';
 
 type Detail = Awaited<ReturnType<JobService['detail']>>;
@@ -9,9 +10,8 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
 /** A job as its page shows it; lines carry available and short, never on-hand figures. */
 export function presentJob(d: Detail): Job {
-  const priced = d.lines.filter((l) => l.unitPriceCents !== null);
   // GST on the invoice total (s 9-90), the one method used throughout.
-  const gst = invoiceGst(priced.map((l) => ({ exCents: l.unitPriceCents!, qty: l.qty })), 'per-invoice');
+  const { subtotalCents, gstCents, totalCents, unpricedLines } = jobTotals(d.lines);
   return {
     id: d.job.id,
     reference: d.job.reference,
@@ -48,7 +48,7 @@ export function presentJob(d: Detail): Job {
     reservations: d.held.map((r) => ({ sku: r.sku, warehouse: r.warehouse, bin: r.bin, qty: r.qty, needsTransfer: r.needsTransfer, expiresAt: iso(r.expiresAt) })),
     backorders: d.queue.map((b) => ({ sku: b.sku, qty: b.qty, since: b.since.toISOString(), position: b.position, unitsAhead: b.unitsAhead })),
     history: d.history.map((h) => ({ status: h.status, at: h.at.toISOString(), by: h.by, note: h.note })),
-    totals: { subtotalCents: gst.exCents, gstCents: gst.gstCents, totalCents: gst.incCents, unpricedLines: d.lines.length - priced.length },
+    totals: { subtotalCents, gstCents, totalCents, unpricedLines },
     paymentTerms: d.paymentTerms,
     payment: d.payment ? { status: d.payment.status, amountCents: Number(d.payment.amountCents), paidAt: d.payment.paidAt.toISOString() } : null,
     abilities: d.abilities,

@@ -14,7 +14,7 @@ import { NotFoundError } from '../errors.ts';
 import { OUTBOX_PAGE_SIZE, type MailEvent, type OutboxQuery } from '@shared/contracts/mail.ts';
 import type { JobStatus } from '@shared/contracts/jobs.ts';
 import type { Role } from '@shared/roles.ts';
-import { invoiceGst } from '@shared/domain/money.ts';
+import { jobTotals } from '@shared/domain/quote.ts';
 import { render, type MailData } from '../mail/templates.ts';
 
 /** The channel the mail queue listens on; the payload is the outbox row's id. */
@@ -105,8 +105,8 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
     async jobOrdered(tx: DbOrTx, jobId: string) {
       const { job, to } = await jobAudience(tx, jobId);
       const { rows } = await tx.execute<{ sku: string; name: string; qty: number; unitPriceCents: number | null }>(jobLinesQuery(jobId));
-      const total = invoiceGst(rows.filter((l) => l.unitPriceCents !== null).map((l) => ({ exCents: Number(l.unitPriceCents), qty: l.qty })), 'per-invoice');
-      return toAll(tx, to, 'order-received', { reference: job.reference, companyName: job.companyName, lines: rows.map((l) => ({ sku: l.sku, name: l.name, qty: l.qty })), totalCents: total.incCents, paymentTerms: job.accountType, url: jobUrl(jobId) }, { jobId });
+      const total = jobTotals(rows);
+      return toAll(tx, to, 'order-received', { reference: job.reference, companyName: job.companyName, lines: rows.map((l) => ({ sku: l.sku, name: l.name, qty: l.qty })), totalCents: total.totalCents, paymentTerms: job.accountType, url: jobUrl(jobId) }, { jobId });
     },
 
     /** After reserving: which lines wait on backorder and when they are expected. Nothing when none do. */

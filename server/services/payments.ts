@@ -7,7 +7,7 @@ import type { Db } from '../db/client.ts';
 import { companies, jobs, paymentEvents, payments } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { AppError, ConflictError } from '../errors.ts';
-import { invoiceGst } from '@shared/domain/money.ts';
+import { jobTotals } from '@shared/domain/quote.ts';
 import { PAYABLE, type JobService } from './jobs.ts';
 import type { MailService } from './mail.ts';
 
@@ -38,10 +38,9 @@ export function createPaymentService({ db, provider, webhookSecret, appUrl, jobs
       const [company] = await db.select({ accountType: companies.accountType }).from(companies).where(eq(companies.id, d.company.id));
       if (company?.accountType !== 'cash') throw new ConflictError(`${d.company.name} is on trade account terms: this job is invoiced, not paid by card.`);
       if (!PAYABLE.includes(d.job.status)) throw new ConflictError(`This job is already ${d.job.status}: card payments are taken to place an order.`);
-      const priced = d.lines.filter((l) => l.unitPriceCents !== null);
-      const { incCents } = invoiceGst(priced.map((l) => ({ exCents: l.unitPriceCents, qty: l.qty })), 'per-invoice');
+      const { totalCents: incCents, unpricedLines } = jobTotals(d.lines);
       if (d.lines.length === 0 || incCents <= 0) throw new ConflictError('This job has no priced lines to pay for.');
-      if (priced.length < d.lines.length) throw new ConflictError('Some lines have no price yet; the trade desk will price them before you pay.');
+      if (unpricedLines > 0) throw new ConflictError('Some lines have no price yet; the trade desk will price them before you pay.');
 
       const existing = await db.select().from(payments).where(eq(payments.jobId, jobId)).orderBy(desc(payments.createdAt));
       if (existing.some((p) => p.status === 'paid')) throw new ConflictError('This job is already paid.');

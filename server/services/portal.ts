@@ -5,7 +5,7 @@ import { ranges } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
 import { companyScopeOf } from '../policies/company-scope.ts';
 import { AppError } from '../errors.ts';
-import { invoiceGst } from '@shared/domain/money.ts';
+import { jobTotals } from '@shared/domain/quote.ts';
 import type { JobStatus } from '@shared/contracts/jobs.ts';
 import type { StackPlanRequest, StackPlanResult } from '@shared/contracts/stack-plans.ts';
 import type { AttentionReason, PlanAlternative } from '@shared/contracts/portal.ts';
@@ -56,7 +56,7 @@ export function createPortalService({ db, planner }: { db: Db; planner: Pick<Pla
       return {
         byStatus: counts.rows,
         attention: attention.rows.map((r) => {
-          const priced = (r.lines ?? []).filter((l) => l.price !== null);
+          const lines = (r.lines ?? []).map((l) => ({ qty: l.qty, unitPriceCents: l.price }));
           return {
             id: r.id,
             reference: r.reference,
@@ -64,7 +64,7 @@ export function createPortalService({ db, planner }: { db: Db; planner: Pick<Pla
             reason: r.reason,
             units: r.units,
             // An unpaid draft whose plan lines are not copied yet has no amount until it is priced.
-            amountCents: r.reason === 'unpaid' && priced.length ? invoiceGst(priced.map((l) => ({ exCents: Number(l.price), qty: l.qty })), 'per-invoice').incCents : null,
+            amountCents: r.reason === 'unpaid' && lines.some((l) => l.unitPriceCents !== null) ? jobTotals(lines).totalCents : null,
             at: r.at ? new Date(r.at).toISOString() : null,
           };
         }),

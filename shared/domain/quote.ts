@@ -24,6 +24,11 @@ export function pricedLineTotal(line: PricedLineInput): number | null {
   return line.unitPriceCents == null ? null : lineTotalCents(line.unitPriceCents, line.packs);
 }
 
+/** A job's totals: its lines are whole units (qty) at a unit price, some not priced yet. */
+export function jobTotals(lines: { qty: number; unitPriceCents: number | string | null }[]): QuoteTotals {
+  return quoteTotals(lines.map((l) => ({ packs: l.qty, unitPriceCents: l.unitPriceCents === null ? null : Number(l.unitPriceCents) })));
+}
+
 /** Subtotal, GST and total over the priced lines, GST on the invoice total. */
 export function quoteTotals(lines: PricedLineInput[], method: GstMethod = 'per-invoice'): QuoteTotals {
   const priced = lines.filter((l): l is PricedLineInput & { unitPriceCents: number } => l.unitPriceCents != null);
