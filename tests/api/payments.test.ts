@@ -211,6 +211,13 @@ describe('the tax invoice', () => {
     // The same number every time it is downloaded.
     const again = await pdfText((await download(sales.get(`/api/jobs/${job.id}/invoice.pdf`))).body as Buffer);
     expect(/No\. (SY-\d{6})/.exec(again.text)![1]).toBe(/No\. (SY-\d{6})/.exec(text)![1]);
+    // Downloading again draws no number: the next job's invoice is the very next number.
+    const next = await draft(cashInstaller, 1, 10_000);
+    const paid = await t.pay.pay((await cashInstaller.post(`/api/jobs/${next.id}/payments`).expect(201)).body.data.checkoutUrl.split('/').pop());
+    await webhook(paid.payload, paid.header).expect(200);
+    const third = await pdfText((await download(cashInstaller.get(`/api/jobs/${next.id}/invoice.pdf`))).body as Buffer);
+    const n = (t: string) => Number(/No\. SY-(\d{6})/.exec(t)![1]);
+    expect(n(third.text)).toBe(n(text) + 1);
   });
 
   it('a draft has none yet (409); another company’s job is 404; the warehouse may not (403)', async () => {
