@@ -3,6 +3,7 @@
 // the mail queue (server/jobs/mail-queue.ts), which sends it with retries. A refused or slow SMTP
 // server therefore never blocks or undoes the business action.
 import { and, desc, eq, ilike, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { lowStockRows } from './stock.ts';
 import { businessDate } from '../lib/dates.ts';
 import { likeLiteral } from '../db/like.ts';
 import { isUuid } from '../db/errors.ts';
@@ -64,6 +65,12 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
       .where(and(eq(user.companyId, job.companyId), sql`coalesce(${user.banned}, false) = false`))
       .orderBy(user.email);
     return { job, to: people.map((p) => p.email) };
+  }
+
+  /** Active staff with these roles. */
+  async function staffAddresses(tx: DbOrTx, roles: Role[]) {
+    const rows = await tx.select({ email: user.email }).from(user).where(and(inArray(user.role, roles), sql`coalesce(${user.banned}, false) = false`)).orderBy(user.email);
+    return rows.map((r) => r.email);
   }
 
   async function toAll<E extends MailEvent>(tx: DbOrTx, to: string[], event: E, data: MailData[E], refs: Record<string, string>) {
@@ -142,14 +149,10 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
     },
 
     /** Staff of these roles (the digest's and the price list's readers). */
-    async staffAddresses(tx: DbOrTx, roles: Role[]) {
-      const rows = await tx.select({ email: user.email }).from(user).where(and(inArray(user.role, roles), sql`coalesce(${user.banned}, false) = false`)).orderBy(user.email);
-      return rows.map((r) => r.email);
-    },
 
     /** Purchasing hears that a supplier's price list was applied, with what it changed. */
     async priceListApplied(tx: DbOrTx, info: { importId: string; supplierName: string; fileName: string; counts: { new: number; changed: number; unchanged: number; missing: number }; appliedBy: string }) {
-      const to = await this.staffAddresses(tx, ['purchasing']);
+      const to = await staffAddresses(tx, ['purchasing']);
       const { counts } = info;
       return toAll(tx, to, 'price-list-applied', { supplierName: info.supplierName, fileName: info.fileName, added: counts.new, changed: counts.changed, unchanged: counts.unchanged, missing: counts.missing, appliedBy: info.appliedBy, url: `${appUrl}/purchasing/imports/${info.importId}` }, { importId: info.importId });
     },
@@ -157,15 +160,9 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
     /** The daily digest for purchasing: parts whose available stock is at or below their minimum. Sends nothing when none are. */
     async lowStockDigest(at: Date = new Date()) {
       return db.transaction(async (tx) => {
-        const { rows } = await tx.execute<{ sku: string; name: string; available: number; reorderAt: number; backordered: number }>(sql`
-          select p.sku, p.name, coalesce(s.available, 0)::int as available, l.min_qty as "reorderAt",
-            coalesce((select sum(b.qty) from backorders b where b.part_id = p.id), 0)::int as backordered
-          from stock_limits l join parts p on p.id = l.part_id
-          left join (select part_id, sum(on_hand - reserved) as available from stock_levels group by part_id) s on s.part_id = p.id
-          where coalesce(s.available, 0) <= l.min_qty and p.archived_at is null
-          order by p.sku`);
+        const rows = (await lowStockRows(tx)).map((r) => ({ sku: r.sku, name: r.name, available: r.available, reorderAt: r.min, backordered: r.backordered }));
         if (rows.length === 0) return [];
-        const to = await this.staffAddresses(tx, ['purchasing']);
+        const to = await staffAddresses(tx, ['purchasing']);
         return toAll(tx, to, 'low-stock-digest', { date: businessDate(at), lines: rows, url: `${appUrl}/stock` }, { digest: at.toISOString().slice(0, 10) });
       });
     },

@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, gte, ilike, inArray, lt, sql, type SQL } from 'drizzle-orm';
 import { likeLiteral } from '../db/like.ts';
-import type { Db, Tx } from '../db/client.ts';
+import type { Db, DbOrTx, Tx } from '../db/client.ts';
 import { pgCode } from '../db/errors.ts';
 import { bins, companies, defaultBins, jobs, parts, partSerials, stockLevels, stockLimits, stockMovements, user, warehouses } from '../db/schema/index.ts';
 import { isSerialised } from '@shared/domain/warehouse.ts';
@@ -250,16 +250,8 @@ export function createStockService({ db, now = () => new Date(), onPurchaseOrder
     /** Parts whose stock (all warehouses) is at or below their minimum. */
     async lowStock(actor: Actor) {
       authorize(actor, 'stock.view');
-      const rows = await db.execute<{ sku: string; name: string; on_hand: number; available: number; backordered: number; min: number; max: number }>(sql`
-        select p.sku, p.name, coalesce(s.on_hand, 0)::int as on_hand, coalesce(s.available, 0)::int as available,
-               coalesce(b.qty, 0)::int as backordered, l.min_qty as min, l.max_qty as max
-        from stock_limits l
-        join parts p on p.id = l.part_id
-        left join (select part_id, sum(on_hand) as on_hand, sum(on_hand - reserved) as available from stock_levels group by part_id) s on s.part_id = l.part_id
-        left join (select part_id, sum(qty) as qty from backorders group by part_id) b on b.part_id = l.part_id
-        where coalesce(s.available, 0) - coalesce(b.qty, 0) <= l.min_qty
-        order by (coalesce(s.available, 0) - coalesce(b.qty, 0) - l.min_qty), p.sku`);
-      return rows.rows.map((r) => ({ sku: r.sku, name: r.name, onHand: r.on_hand, available: r.available, backordered: r.backordered, min: r.min, max: r.max, toMax: Math.max(0, r.max - (r.available - r.backordered)) }));
+      const rows = await lowStockRows(db);
+      return rows.map((r) => ({ ...r, toMax: Math.max(0, r.max - (r.available - r.backordered)) }));
     },
 
     /** The part's minimum and maximum and its default bins, for the part page's stock settings. */
@@ -350,3 +342,21 @@ export function createStockService({ db, now = () => new Date(), onPurchaseOrder
 }
 
 export type StockService = ReturnType<typeof createStockService>;
+
+/**
+ * Parts at or below their minimum, counting what waiting backorders will take (available less
+ * backordered), most short first; archived parts are not restocked. The low-stock page and
+ * purchasing's daily digest both read this.
+ */
+export async function lowStockRows(db: DbOrTx) {
+  const rows = await db.execute<{ sku: string; name: string; on_hand: number; available: number; backordered: number; min: number; max: number }>(sql`
+    select p.sku, p.name, coalesce(s.on_hand, 0)::int as on_hand, coalesce(s.available, 0)::int as available,
+           coalesce(b.qty, 0)::int as backordered, l.min_qty as min, l.max_qty as max
+    from stock_limits l
+    join parts p on p.id = l.part_id and p.archived_at is null
+    left join (select part_id, sum(on_hand) as on_hand, sum(on_hand - reserved) as available from stock_levels group by part_id) s on s.part_id = l.part_id
+    left join (select part_id, sum(qty) as qty from backorders group by part_id) b on b.part_id = l.part_id
+    where coalesce(s.available, 0) - coalesce(b.qty, 0) <= l.min_qty
+    order by (coalesce(s.available, 0) - coalesce(b.qty, 0) - l.min_qty), p.sku`);
+  return rows.rows.map((r) => ({ sku: r.sku, name: r.name, onHand: r.on_hand, available: r.available, backordered: r.backordered, min: r.min, max: r.max }));
+}

@@ -160,6 +160,10 @@ describe('messages for the wholesaler’s own people', () => {
     expect(digest!.text).toContain(`${low.sku}`);
     expect(digest!.text).toContain('available 2, reorder at 5');
     expect(digest!.text).not.toContain(fine.sku);
+    // The same parts the low-stock page lists (one query for both).
+    const page = (await admin.get('/api/stock/low').expect(200)).body.data as { sku: string }[];
+    expect(page.map((r) => r.sku)).toContain(low.sku);
+    expect(page.map((r) => r.sku)).not.toContain(fine.sku);
     expect(await inbox('ops@ironbark.test').then((m) => m.filter((x) => x.subject.startsWith('Low stock')))).toEqual([]);
   });
 });
