@@ -101,9 +101,9 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
       return toAll(tx, [po.email], 'purchase-order', {
         supplierName: po.supplier,
         poNumber: po.number,
-        lines: lines.map((l) => ({ sku: l.sku, name: l.name, qty: l.qty, supplierSku: l.supplier_sku, unitCostCents: l.cost === null ? null : Math.round(Number(l.cost)) })),
+        lines: lines.map((l) => ({ sku: l.sku, name: l.name, qty: l.qty, supplierSku: l.supplier_sku, unitCostCents: l.cost === null ? null : Number(l.cost) })),
         deliverTo: po.deliver_to,
-        expectedBy: po.expected ? new Date(po.expected).toISOString().slice(0, 10) : null,
+        expectedBy: po.expected ? businessDate(po.expected) : null,
         buyerName: po.buyer ?? 'our purchasing team',
       }, { purchaseOrderId: poId });
     },
