@@ -2,19 +2,17 @@
 // encodes. Pick labels per line (per unit for serialised parts); kit labels per parcel with an
 // SSCC from the database sequence and a QR code to the job's page.
 import { eq, sql } from 'drizzle-orm';
-import { isUuid } from '../db/errors.ts';
 import type { Db } from '../db/client.ts';
 import { jobParcels, settings, ssccSerialSequence } from '../db/schema/index.ts';
 import { authorize, type Actor } from '../policies/actor.ts';
-import { assertCanSeeCompany } from '../policies/company-scope.ts';
 import { ConflictError, NotFoundError } from '../errors.ts';
 import type { JobStatus } from '@shared/contracts/jobs.ts';
 import type { LabelKind, Symbology } from '@shared/contracts/warehouse.ts';
 import { makeSscc } from '@shared/domain/gtin.ts';
-import { gs1ElementString, gs1HumanReadable, isGs1Text, type Gs1Field } from '@shared/domain/gs1.ts';
+import { gs1ElementString, gs1FieldProblem, gs1HumanReadable, type Gs1Field } from '@shared/domain/gs1.ts';
 import { INSTALLATION_CAUTIONS, LITHIUM_REMINDERS } from '@shared/domain/warehouse.ts';
 import type { PlannerService } from './planner.ts';
-import { loadPick, type LoadedLine } from './picking.ts';
+import { visiblePick, type LoadedLine } from './picking.ts';
 
 /** GS1's own documentation company prefix (the one its worked examples use): the demo's setting. */
 export const DOCUMENTATION_COMPANY_PREFIX = '0614141';
@@ -49,7 +47,7 @@ const LABELLED: JobStatus[] = ['reserved', 'part-reserved', 'picking', 'ready', 
 export function orderReferenceOf(jobReference: string): string | null {
   const head = jobReference.trim().split(/\s+/)[0] ?? '';
   // A number, not a word: letters, digits and dashes with at least one digit.
-  return /^[A-Za-z0-9][A-Za-z0-9./-]*$/.test(head) && /\d/.test(head) && head.length <= 30 && isGs1Text(head) ? head : null;
+  return /^[A-Za-z0-9][A-Za-z0-9./-]*$/.test(head) && /\d/.test(head) && gs1FieldProblem({ ai: '400', value: head }) === null ? head : null;
 }
 
 /** Parcels for a kit: each unit with cells travels on its own (heavy, dangerous goods); the rest share one. */
@@ -66,14 +64,6 @@ function symbolFor(gtin: string | null, extra: Gs1Field[], sku: string) {
 }
 
 export function createLabelsService({ db, planner, publicUrl, now = () => new Date() }: LabelsDeps) {
-  async function visiblePick(actor: Actor, jobId: string) {
-    if (!isUuid(jobId)) throw new NotFoundError('That job');
-    const pick = await loadPick(db, jobId);
-    if (!pick) throw new NotFoundError('That job');
-    assertCanSeeCompany(actor, pick.job.company_id, 'That job');
-    return pick;
-  }
-
   async function companyPrefix() {
     const [row] = await db.select().from(settings).where(eq(settings.key, COMPANY_PREFIX_SETTING));
     const value = (row?.value as { prefix?: unknown } | undefined)?.prefix;
@@ -82,6 +72,9 @@ export function createLabelsService({ db, planner, publicUrl, now = () => new Da
 
   /** The job's parcels, numbered once: the first labelling takes serial references from the sequence. */
   async function parcels(jobId: string, count: number) {
+    // Numbered already (every label request after the first): a plain read, no lock.
+    const numbered = await db.select().from(jobParcels).where(eq(jobParcels.jobId, jobId)).orderBy(jobParcels.n);
+    if (numbered.length) return numbered;
     const prefix = await companyPrefix();
     return db.transaction(async (tx) => {
       await tx.execute(sql`select id from jobs where id = ${jobId} for update`);
@@ -97,56 +90,56 @@ export function createLabelsService({ db, planner, publicUrl, now = () => new Da
     });
   }
 
-  return {
-    companyPrefix,
-
-    /** Every label for the job, numbered from 1: pick labels in walking order, then one kit label per parcel. */
-    async build(actor: Actor, jobId: string): Promise<BuiltLabel[]> {
-      authorize(actor, 'labels.print');
-      const pick = await visiblePick(actor, jobId);
-      const { job } = pick;
-      const placed = pick.lines.filter((l) => l.places.length > 0);
-      if (!LABELLED.includes(job.status) || placed.length === 0)
-        throw new ConflictError(`Nothing is reserved for job ${job.reference} yet, so there is nothing to label. Reserve its stock first.`);
-      const order = orderReferenceOf(job.reference);
-      const orderField: Gs1Field[] = order ? [{ ai: '400', value: order }] : [];
-      const labels: Omit<BuiltLabel, 'n'>[] = [];
-      const walk = [...placed].sort((a, b) => a.places[0]!.warehouseRank - b.places[0]!.warehouseRank || a.places[0]!.binOrder - b.places[0]!.binOrder || a.lineNo - b.lineNo);
-      for (const l of walk) {
-        const where = l.places.map((p) => `${p.warehouse} ${p.bin}`).join(', ');
-        const head = (qty: string) => [`${l.sku}  ·  ${qty}`, l.name, `Bin ${where}  ·  Job ${job.reference}`];
-        const dg = l.lithiumShort ? [`${l.lithiumShort} · ${LITHIUM_REMINDERS[0]}`] : [];
-        if (l.serialised) {
-          for (let u = 0; u < l.qty; u++) {
-            const serial = l.serials[u] ?? null;
-            const sym = symbolFor(l.gtin, [...(serial ? [{ ai: '21' as const, value: serial }] : []), ...orderField], l.sku);
-            labels.push({ kind: 'unit', lines: [...head(`unit ${u + 1} of ${l.qty}`), serial ? `Serial ${serial}` : 'Serial: scan at picking', ...dg], ...sym, qr: null, lithium: !!l.lithium });
-          }
-        } else {
-          const sym = symbolFor(l.gtin, orderField, l.sku);
-          labels.push({ kind: 'pick', lines: [...head(`qty ${l.qty}`), ...dg], ...sym, qr: null, lithium: !!l.lithium });
+  /** Every label for the job, numbered from 1: pick labels in walking order, then one kit label per parcel. */
+  async function build(actor: Actor, jobId: string): Promise<BuiltLabel[]> {
+    authorize(actor, 'labels.print');
+    const pick = await visiblePick(db, actor, jobId);
+    const { job } = pick;
+    const placed = pick.lines.filter((l) => l.places.length > 0);
+    if (!LABELLED.includes(job.status) || placed.length === 0)
+      throw new ConflictError(`Nothing is reserved for job ${job.reference} yet, so there is nothing to label. Reserve its stock first.`);
+    const order = orderReferenceOf(job.reference);
+    const orderField: Gs1Field[] = order ? [{ ai: '400', value: order }] : [];
+    const labels: Omit<BuiltLabel, 'n'>[] = [];
+    const walk = [...placed].sort((a, b) => a.places[0]!.warehouseRank - b.places[0]!.warehouseRank || a.places[0]!.binOrder - b.places[0]!.binOrder || a.lineNo - b.lineNo);
+    for (const l of walk) {
+      const where = l.places.map((p) => `${p.warehouse} ${p.bin}`).join(', ');
+      const head = (qty: string) => [`${l.sku}  ·  ${qty}`, l.name, `Bin ${where}  ·  Job ${job.reference}`];
+      const dg = l.lithiumShort ? [`${l.lithiumShort} · ${LITHIUM_REMINDERS[0]}`] : [];
+      if (l.serialised) {
+        for (let u = 0; u < l.qty; u++) {
+          const serial = l.serials[u] ?? null;
+          const sym = symbolFor(l.gtin, [...(serial ? [{ ai: '21' as const, value: serial }] : []), ...orderField], l.sku);
+          labels.push({ kind: 'unit', lines: [...head(`unit ${u + 1} of ${l.qty}`), serial ? `Serial ${serial}` : 'Serial: scan at picking', ...dg], ...sym, qr: null, lithium: !!l.lithium });
         }
+      } else {
+        const sym = symbolFor(l.gtin, orderField, l.sku);
+        labels.push({ kind: 'pick', lines: [...head(`qty ${l.qty}`), ...dg], ...sym, qr: null, lithium: !!l.lithium });
       }
-      const kit = await parcels(jobId, parcelCount(pick.lines));
-      const link = `${publicUrl.replace(/\/$/, '')}/jobs/${job.id}`;
-      for (const p of kit) {
-        const fields: Gs1Field[] = [{ ai: '00', value: p.sscc }];
-        labels.push({
-          kind: 'kit',
-          lines: [`Job ${job.reference}`, job.company, `Site: ${job.site_suburb ?? '—'}${job.site_postcode ? ` ${job.site_postcode}` : ''}`, `Parcel ${p.n} of ${p.of}`],
-          symbology: 'gs1-128',
-          payload: gs1ElementString(fields),
-          text: gs1HumanReadable(fields),
-          bwipText: gs1HumanReadable(fields),
-          qr: { payload: link },
-          lithium: pick.lines.some((l) => l.lithium),
-        });
-      }
-      return labels.map((l, i) => ({ ...l, n: i + 1 }));
-    },
+    }
+    const kit = await parcels(jobId, parcelCount(pick.lines));
+    const link = `${publicUrl.replace(/\/$/, '')}/jobs/${job.id}`;
+    for (const p of kit) {
+      const fields: Gs1Field[] = [{ ai: '00', value: p.sscc }];
+      labels.push({
+        kind: 'kit',
+        lines: [`Job ${job.reference}`, job.company, `Site: ${job.site_suburb ?? '—'}${job.site_postcode ? ` ${job.site_postcode}` : ''}`, `Parcel ${p.n} of ${p.of}`],
+        symbology: 'gs1-128',
+        payload: gs1ElementString(fields),
+        text: gs1HumanReadable(fields),
+        bwipText: gs1HumanReadable(fields),
+        qr: { payload: link },
+        lithium: pick.lines.some((l) => l.lithium),
+      });
+    }
+    return labels.map((l, i) => ({ ...l, n: i + 1 }));
+  }
+
+  return {
+    build,
 
     async one(actor: Actor, jobId: string, n: number) {
-      const all = await this.build(actor, jobId);
+      const all = await build(actor, jobId);
       const label = all.find((l) => l.n === n);
       if (!label) throw new NotFoundError(`Label ${n} of this job`);
       return label;
@@ -155,7 +148,7 @@ export function createLabelsService({ db, planner, publicUrl, now = () => new Da
     /** The handover sheet: the system as planned, every serial by part, the cautions. */
     async handover(actor: Actor, jobId: string) {
       authorize(actor, 'jobs.view');
-      const pick = await visiblePick(actor, jobId);
+      const pick = await visiblePick(db, actor, jobId);
       const { job } = pick;
       const plans = (await db.execute<{ plan_id: string }>(sql`select plan_id from job_plans where job_id = ${jobId} order by plan_id`)).rows;
       const systems = [];

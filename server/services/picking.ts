@@ -145,14 +145,17 @@ function nextExpected(lines: LoadedLine[]) {
     .join('; ');
 }
 
+/** The job's pick as the actor may see it: another company's job (or no job) is "not found". */
+export async function visiblePick(q: DbOrTx, actor: Actor, jobId: string) {
+  if (!isUuid(jobId)) throw new NotFoundError('That job');
+  const pick = await loadPick(q, jobId);
+  if (!pick) throw new NotFoundError('That job');
+  assertCanSeeCompany(actor, pick.job.company_id, 'That job');
+  return pick;
+}
+
 export function createPickingService({ db, now = () => new Date(), mail }: PickingDeps) {
-  async function visible(actor: Actor, jobId: string, q: DbOrTx = db) {
-    if (!isUuid(jobId)) throw new NotFoundError('That job');
-    const pick = await loadPick(q, jobId);
-    if (!pick) throw new NotFoundError('That job');
-    assertCanSeeCompany(actor, pick.job.company_id, 'That job');
-    return pick;
-  }
+  const visible = (actor: Actor, jobId: string, q: DbOrTx = db) => visiblePick(q, actor, jobId);
 
   async function lockJob(tx: Tx, jobId: string) {
     await tx.execute(sql`select id from jobs where id = ${jobId} for update`);

@@ -86,5 +86,8 @@ describe('kit rules', () => {
     expect(orderReferenceOf('BG-2041 Fern St')).toBe('BG-2041');
     expect(orderReferenceOf('Quote, Hill St')).toBeNull(); // a word, not an order number
     expect(orderReferenceOf('BG-2044 Quote, Hill St')).toBe('BG-2044');
+    // GS1 General Specifications: AI (400) carries up to 30 characters (AI 21 only 20).
+    expect(orderReferenceOf('PO-2026-000000000000000000001 site')).toBe('PO-2026-000000000000000000001');
+    expect(orderReferenceOf(`PO-${'1'.repeat(28)} site`)).toBeNull(); // 31 characters
   });
 });
