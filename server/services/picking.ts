@@ -269,6 +269,7 @@ export function createPickingService({ db, now = () => new Date(), mail }: Picki
           let partId: string | null = null;
           let serial: string | null = null;
           if (reading.kind === 'gs1' && reading.sscc && !reading.gtin14) return refuse(`That is a parcel label (SSCC ${reading.sscc}), not a part.`);
+          if (reading.kind === 'gs1' && !reading.gtin14) return refuse('That GS1 barcode names no part (it has no GTIN, AI 01). Scan the part’s own label.');
           if (reading.kind === 'gs1' || reading.kind === 'gtin') {
             const [p] = (await tx.execute<{ id: string }>(sql`select id from parts where gtin14 = ${reading.gtin14}`)).rows;
             if (!p) return refuse(`Unknown barcode: no part has GTIN ${reading.gtin14}.`);

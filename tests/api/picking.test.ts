@@ -73,6 +73,9 @@ describe('scans', () => {
     const unknown = (await scan(k.id, 'NO-SUCH-THING')).body.data;
     expect(unknown).toMatchObject({ accepted: false });
     expect(unknown.message).toMatch(/^Unknown barcode “NO-SUCH-THING”/);
+    // A GS1 label with only an order number (400) names no part: said so, not "GTIN null".
+    const noGtin = (await scan(k.id, '(400)PO-77')).body.data;
+    expect(noGtin).toMatchObject({ accepted: false, message: 'That GS1 barcode names no part (it has no GTIN, AI 01). Scan the part’s own label.' });
 
     const serialOnCounted = (await scan(k.id, `(01)${k.bracketGtin14}(21)SN-1`)).body.data;
     expect(serialOnCounted).toMatchObject({ accepted: false, expected: `${k.bracket.sku} without a serial` });
