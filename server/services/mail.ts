@@ -201,7 +201,7 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
     async deliver(transport: Transporter, id: string, maxAttempts: number) {
       const [row] = await db
         .update(mailOutbox)
-        .set({ status: 'sending', attempts: sql`${mailOutbox.attempts} + 1` })
+        .set({ status: 'sending', attempts: sql`${mailOutbox.attempts} + 1`, attemptedAt: new Date() })
         .where(and(eq(mailOutbox.id, id), inArray(mailOutbox.status, ['queued', 'retrying'])))
         .returning();
       if (!row) return { sent: false as const };
@@ -223,11 +223,12 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
      * `retrying` ones belong to pg-boss's own retries.
      */
     async stranded(olderThan: Date, stuckSince = new Date(olderThan.getTime() - 2 * 3_600_000)) {
-      await db.update(mailOutbox).set({ status: 'retrying' }).where(and(eq(mailOutbox.status, 'sending'), sql`${mailOutbox.createdAt} < ${stuckSince}`));
+      // By the last attempt, not the message's age: an old message a sender took up a minute ago is not stranded.
+      await db.update(mailOutbox).set({ status: 'retrying' }).where(and(eq(mailOutbox.status, 'sending'), sql`${mailOutbox.attemptedAt} < ${stuckSince}`));
       const rows = await db
         .select({ id: mailOutbox.id })
         .from(mailOutbox)
-        .where(and(sql`(${mailOutbox.status} = 'queued' and ${mailOutbox.createdAt} < ${olderThan}) or (${mailOutbox.status} = 'retrying' and ${mailOutbox.createdAt} < ${stuckSince})`, isNull(mailOutbox.sentAt)))
+        .where(and(sql`(${mailOutbox.status} = 'queued' and ${mailOutbox.createdAt} < ${olderThan}) or (${mailOutbox.status} = 'retrying' and ${mailOutbox.attemptedAt} < ${stuckSince})`, isNull(mailOutbox.sentAt)))
         .limit(500);
       return rows.map((r) => r.id);
     },

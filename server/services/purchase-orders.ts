@@ -151,7 +151,11 @@ export function createPurchaseOrderService({ db, now = () => new Date(), onPurch
     /** Reorder suggestions: parts whose available − backorders + on order is at or below their minimum. */
     async suggestions(actor: Actor): Promise<Suggestion[]> {
       authorize(actor, 'purchasing.manage');
-      const wh = await receivingWarehouse().catch(() => null);
+      // No warehouse yet: nothing can be ordered into, so nothing to suggest.
+      const wh = await receivingWarehouse().catch((e: unknown) => {
+        if (e instanceof ConflictError) return null;
+        throw e;
+      });
       if (!wh) return [];
       const { rows } = await db.execute<{ id: string; sku: string; name: string; available: number; backordered: number; on_order: number; min: number; max: number }>(sql`
         select p.id, p.sku, p.name, coalesce(s.available, 0)::int as available, coalesce(b.qty, 0)::int as backordered, coalesce(o.qty, 0)::int as on_order, l.min_qty as min, l.max_qty as max
@@ -233,10 +237,13 @@ export function createPurchaseOrderService({ db, now = () => new Date(), onPurch
 
     async remove(actor: Actor, id: string) {
       authorize(actor, 'purchasing.manage');
-      const [po] = await db.select().from(purchaseOrders).where(eq(purchaseOrders.id, id));
-      if (!po) throw new NotFoundError('That purchase order');
-      if (po.status !== 'draft') throw new ConflictError(`Purchase order ${po.number} has been sent; close it instead of deleting it.`);
-      await db.delete(purchaseOrders).where(eq(purchaseOrders.id, id));
+      // Locked, so a "mark sent" arriving at the same moment cannot lose its order.
+      await db.transaction(async (tx) => {
+        const [po] = await tx.select().from(purchaseOrders).where(eq(purchaseOrders.id, id)).for('update');
+        if (!po) throw new NotFoundError('That purchase order');
+        if (po.status !== 'draft') throw new ConflictError(`Purchase order ${po.number} has been sent; close it instead of deleting it.`);
+        await tx.delete(purchaseOrders).where(eq(purchaseOrders.id, id));
+      });
     },
 
     /** A receipt against this order, as the stock service's receipt input (the warehouse's receiving flow books it). */
@@ -251,7 +258,9 @@ export function createPurchaseOrderService({ db, now = () => new Date(), onPurch
           if (!line) throw new ValidationError(`Line ${i + 1} is not on purchase order ${po.number}.`, { fields: [{ path: `lines.${i}.lineId`, message: 'Not on this order.' }] });
           let bin = l.bin;
           if (!bin) {
-            bin = await resolveBin(db, line.partId, wh!.id, undefined, `lines.${i}.bin`).catch(() => {
+            bin = await resolveBin(db, line.partId, wh!.id, undefined, `lines.${i}.bin`).catch((e: unknown) => {
+              // Only "no bin yet" falls back to the receiving bin; a database failure stays one.
+              if (!(e instanceof ValidationError)) throw e;
               if (input.fallbackBin) return input.fallbackBin;
               throw new ValidationError(`${line.sku} has no bin in ${po.warehouse} yet: name one for it, or a receiving bin.`, { fields: [{ path: `lines.${i}.bin`, message: 'Name the bin.' }] });
             });

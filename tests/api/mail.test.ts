@@ -237,6 +237,29 @@ describe('a failing SMTP server', () => {
   }, 40_000);
 });
 
+describe('the sweep for stranded messages', () => {
+  it('takes up a message a dead sender left, by its last attempt, and leaves an old one a sender took up just now', async () => {
+    const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000);
+    const base = { event: 'order-received' as const, subject: 'Sweep check', text: 'x', html: '<p>x</p>' };
+    const [dead, busy, waiting] = await t.db
+      .insert(mailOutbox)
+      .values([
+        { ...base, to: 'dead@sweep.test', status: 'sending', createdAt: hoursAgo(5), attemptedAt: hoursAgo(3) },
+        { ...base, to: 'busy@sweep.test', status: 'sending', createdAt: hoursAgo(5), attemptedAt: new Date() },
+        { ...base, to: 'waiting@sweep.test', status: 'queued', createdAt: hoursAgo(1) },
+      ])
+      .returning({ id: mailOutbox.id });
+    const found = await t.services.mail.stranded(new Date(Date.now() - 60_000));
+    // From memory of the failure it guards against: a message queued hours ago and picked up a
+    // moment ago was swept by its age and sent twice.
+    expect(found).toEqual(expect.arrayContaining([dead!.id, waiting!.id]));
+    expect(found).not.toContain(busy!.id);
+    const [still] = await t.db.select({ status: mailOutbox.status }).from(mailOutbox).where(eq(mailOutbox.id, busy!.id));
+    expect(still!.status).toBe('sending');
+    await t.db.delete(mailOutbox).where(sql`${mailOutbox.to} like '%@sweep.test'`);
+  });
+});
+
 describe('the outbox API', () => {
   it('admins list messages newest first, filter by recipient and read both parts', async () => {
     const list = await admin.get('/api/admin/outbox?to=ironbark');

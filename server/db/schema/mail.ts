@@ -26,6 +26,8 @@ export const mailOutbox = pgTable(
     /** The SMTP server's message id once accepted. */
     messageId: text(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    /** When a sender last took it up: how the sweep tells a dead sender from a slow queue. */
+    attemptedAt: timestamp({ withTimezone: true }),
     sentAt: timestamp({ withTimezone: true }),
   },
   (t) => [

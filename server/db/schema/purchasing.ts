@@ -97,7 +97,12 @@ export const priceListRows = pgTable(
     kind: text({ enum: ['error', 'new', 'changed', 'unchanged'] }).notNull(),
     flagged: boolean().notNull().default(false),
   },
-  (t) => [primaryKey({ columns: [t.importId, t.rowNo] }), index().on(t.importId, t.kind)],
+  (t) => [
+    primaryKey({ columns: [t.importId, t.rowNo] }),
+    index().on(t.importId, t.kind),
+    // "Missing from this file" looks each of the supplier's parts up here by SKU, any case.
+    index('price_list_rows_import_upper_sku_idx').on(t.importId, sql`upper(${t.supplierSku})`),
+  ],
 );
 
 /** Sell price basis per category: cost plus markup, or the supplier's recommended list price. */
