@@ -181,9 +181,11 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
       includeInverter: input.includeInverter,
     });
     if (!result.ok) throw new ValidationError(result.error.message, { code: result.error.code, ...result.error.details });
-    const p = atCustomerPrices(result.plan, await customerDiscountPct(db, companyScopeOf(actor)));
+    const discountPct = await customerDiscountPct(db, companyScopeOf(actor));
+    const p = atCustomerPrices(result.plan, discountPct);
     return {
       ...p,
+      discountPct,
       rangeId: loaded.row.id,
       rangeName: loaded.row.name,
       inverterSku: inverter?.sku ?? null,

@@ -104,6 +104,8 @@ export const StackPlanSchema = z.object({
   /** Site facts assumed because the request left them out. */
   siteAssumed: z.array(text()),
   totals: z.object({ gstMethod: z.enum(['per-line', 'per-invoice']), subtotalCents: z.number(), gstCents: z.number(), totalCents: z.number(), unpricedLines: z.number() }),
+  /** The asker's tier discount already in the prices (0: list prices). */
+  discountPct: z.number(),
 });
 export type StackPlanResult = z.infer<typeof StackPlanSchema>;
 

@@ -25,6 +25,9 @@ describe('POST /api/stack-plans', () => {
     const ask = { rangeId: ids['QRB-HEARTH'], modules: 3 };
     const list = (await sales.post('/api/stack-plans').send(ask).expect(200)).body.data;
     const theirs = (await installer.post('/api/stack-plans').send(ask).expect(200)).body.data;
+    // The answer says which prices it carries, so the page can say so beside the totals.
+    expect(list.discountPct).toBe(0);
+    expect(theirs.discountPct).toBe(12.5);
     for (const [i, l] of (list.bom as { sku: string; packs: number; unitPriceCents: number | null }[]).entries()) {
       const mine = theirs.bom[i];
       expect(mine.sku).toBe(l.sku);

@@ -50,7 +50,7 @@ export function JobLines({ job }: { job: Job }) {
       </table>
       </div>
       <div className="p-2">
-        <MoneyTotals totals={job.totals} basis="List prices at ordering" />
+        <MoneyTotals totals={job.totals} basis="Prices as fixed when ordered, the customer’s tier discount included" />
       </div>
     </div>
   );

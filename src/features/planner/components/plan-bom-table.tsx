@@ -143,7 +143,7 @@ export function PlanBomTable({ plan }: { plan: ShownPlan }) {
       <div className="[&>div]:max-h-none print:[&>div]:overflow-visible">
         <DataTable label="Bill of materials" data={plan.bom} columns={columns} getRowId={(l) => l.sku} empty="No parts." />
       </div>
-      <MoneyTotals totals={plan.totals} basis="List prices" />
+      <MoneyTotals totals={plan.totals} basis={plan.discountPct > 0 ? `Your prices: list less your ${plan.discountPct} % tier discount` : 'List prices'} />
     </div>
   );
 }

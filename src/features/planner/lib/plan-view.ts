@@ -16,6 +16,8 @@ export type ShownPlan = Omit<StackPlan, 'bom' | 'inverterFit'> & {
   bom: ShownLine[];
   inverterFit: { fits: boolean; reason?: string; code?: string; warnings?: string[] } | null;
   unitWidthMm: number;
+  /** The viewer's tier discount in the prices; the browser's own plan has list prices (0). */
+  discountPct: number;
   /** True once the lines carry the server's stock figures for exactly this plan. */
   confirmed: boolean;
 };
@@ -43,7 +45,7 @@ export function planLocally(detail: RangeDetail, req: StackPlanRequest, inverter
     includeInverter: req.includeInverter,
   });
   if (!result.ok) return result;
-  return { ok: true, plan: { ...result.plan, unitWidthMm: unitWidthOf(range), confirmed: false } };
+  return { ok: true, plan: { ...result.plan, unitWidthMm: unitWidthOf(range), discountPct: 0, confirmed: false } };
 }
 
 export function fromServer(result: StackPlanResult): ShownPlan {
