@@ -28,9 +28,6 @@ export interface InvoiceDoc {
   paymentNote: string;
 }
 
-/** The ATO's threshold from which a tax invoice must identify the buyer (domain.md §5). */
-export const BUYER_IDENTITY_FROM_CENTS = 100_000;
-
 
 /**
  * A tax invoice (domain.md §5): the words "Tax invoice", the seller and its ABN, the date, each

@@ -19,7 +19,7 @@ export interface MailLine {
 export interface MailData {
   invitation: { name: string; inviterName: string; companyName: string; url: string };
   'password-reset': { name: string; url: string };
-  'order-received': { reference: string; companyName: string; lines: MailLine[]; totalCents: number; paymentTerms: 'trade' | 'cash'; url: string };
+  'order-received': { reference: string; companyName: string; lines: MailLine[]; totalCents: number; unpricedLines: number; paymentTerms: 'trade' | 'cash'; url: string };
   backorders: { reference: string; lines: (MailLine & { expected: string | null })[]; url: string };
   'ready-for-collection': { reference: string; place: string | null; url: string };
   dispatched: { reference: string; carrier: string | null; trackingRef: string | null; url: string };
@@ -70,10 +70,12 @@ export const TEMPLATES: Templates = {
   }),
   'order-received': (d) => {
     const terms = d.paymentTerms === 'cash' ? 'Paid by card.' : 'Invoiced on your trade account terms.';
+    // A line without a price is not in the total: say so rather than send a total that looks whole.
+    const total = d.unpricedLines > 0 ? `Total inc GST of the priced lines: ${formatCents(d.totalCents)}; the trade desk will price the other ${d.unpricedLines === 1 ? 'line' : `${d.unpricedLines} lines`}.` : `Total inc GST: ${formatCents(d.totalCents)}.`;
     return {
       subject: `We have your order ${d.reference}`,
-      text: `Your order ${d.reference} for ${d.companyName} has reached the trade desk. We are setting the stock aside now and will write again if anything has to wait.\n\n${textLines(d.lines.map((l) => `${l.qty} × ${l.sku}  ${l.name}`))}\n\nTotal inc GST: ${formatCents(d.totalCents)}. ${terms}\n\nFollow it here: ${d.url}${signOff}`,
-      html: page(`Order ${d.reference}`, `${p(`Your order ${d.reference} for ${d.companyName} has reached the trade desk. We are setting the stock aside now and will write again if anything has to wait.`)}${table(['Qty', 'SKU', 'Part'], d.lines.map((l) => [l.qty, l.sku, l.name]))}${p(`Total inc GST: ${formatCents(d.totalCents)}. ${terms}`)}${link(d.url, 'Follow the job')}`),
+      text: `Your order ${d.reference} for ${d.companyName} has reached the trade desk. We are setting the stock aside now and will write again if anything has to wait.\n\n${textLines(d.lines.map((l) => `${l.qty} × ${l.sku}  ${l.name}`))}\n\n${total} ${terms}\n\nFollow it here: ${d.url}${signOff}`,
+      html: page(`Order ${d.reference}`, `${p(`Your order ${d.reference} for ${d.companyName} has reached the trade desk. We are setting the stock aside now and will write again if anything has to wait.`)}${table(['Qty', 'SKU', 'Part'], d.lines.map((l) => [l.qty, l.sku, l.name]))}${p(`${total} ${terms}`)}${link(d.url, 'Follow the job')}`),
     };
   },
   backorders: (d) => {

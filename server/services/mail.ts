@@ -34,10 +34,18 @@ export interface Outgoing<E extends MailEvent> {
  * commits, and never if it rolls back. The hook other services call (purchase orders, price lists).
  */
 export async function enqueueMail<E extends MailEvent>(tx: DbOrTx, message: Outgoing<E>): Promise<string> {
-  const { subject, text, html } = render(message.event, message.data);
-  const [row] = await tx.insert(mailOutbox).values({ event: message.event, to: message.to, subject, text, html, refs: message.refs ?? {} }).returning({ id: mailOutbox.id });
-  await tx.execute(sql`select pg_notify(${MAIL_CHANNEL}, ${row!.id})`);
-  return row!.id;
+  const [id] = await enqueueToAll(tx, [message.to], message.event, message.data, message.refs ?? {});
+  return id!;
+}
+
+/** One message to each address, rendered once (the same words go to everyone). */
+async function enqueueToAll<E extends MailEvent>(tx: DbOrTx, to: string[], event: E, data: MailData[E], refs: Record<string, string>): Promise<string[]> {
+  if (to.length === 0) return [];
+  const { subject, text, html } = render(event, data);
+  const rows = await tx.insert(mailOutbox).values(to.map((address) => ({ event, to: address, subject, text, html, refs }))).returning({ id: mailOutbox.id });
+  const ids = rows.map((r) => r.id);
+  await tx.execute(sql`select pg_notify(${MAIL_CHANNEL}, id) from unnest(${sql.param(ids)}::text[]) as id`);
+  return ids;
 }
 
 /** Expected arrival of short parts, by part id. The purchasing work (purchase orders) supplies it at merge. */
@@ -73,19 +81,13 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
     return rows.map((r) => r.email);
   }
 
-  async function toAll<E extends MailEvent>(tx: DbOrTx, to: string[], event: E, data: MailData[E], refs: Record<string, string>) {
-    const ids: string[] = [];
-    for (const address of to) ids.push(await enqueueMail(tx, { event, to: address, data, refs }));
-    return ids;
-  }
+  const toAll = enqueueToAll;
 
   const jobLinesQuery = (jobId: string) => sql`select p.id as "partId", p.sku, p.name, jl.qty, jl.unit_price_cents as "unitPriceCents",
       coalesce((select b.qty from backorders b where b.job_line_id = jl.id), 0)::int as backordered
     from job_lines jl join parts p on p.id = jl.part_id where jl.job_id = ${jobId} order by jl.line_no`;
 
   return {
-    enqueue: enqueueMail,
-
     /** A purchase order marked sent goes to the supplier's contact (none on file: nothing is sent). */
     async purchaseOrderSent(tx: DbOrTx, poId: string) {
       const { rows } = await tx.execute<{ number: string; supplier: string; email: string | null; deliver_to: string; expected: Date | null; buyer: string | null }>(sql`
@@ -113,7 +115,7 @@ export function createMailService({ db, appUrl, expectedArrivals = noExpectedDat
       const { job, to } = await jobAudience(tx, jobId);
       const { rows } = await tx.execute<{ sku: string; name: string; qty: number; unitPriceCents: number | null }>(jobLinesQuery(jobId));
       const total = jobTotals(rows);
-      return toAll(tx, to, 'order-received', { reference: job.reference, companyName: job.companyName, lines: rows.map((l) => ({ sku: l.sku, name: l.name, qty: l.qty })), totalCents: total.totalCents, paymentTerms: job.accountType, url: jobUrl(jobId) }, { jobId });
+      return toAll(tx, to, 'order-received', { reference: job.reference, companyName: job.companyName, lines: rows.map((l) => ({ sku: l.sku, name: l.name, qty: l.qty })), totalCents: total.totalCents, unpricedLines: total.unpricedLines, paymentTerms: job.accountType, url: jobUrl(jobId) }, { jobId });
     },
 
     /** After reserving: which lines wait on backorder and when they are expected. Nothing when none do. */

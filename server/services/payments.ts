@@ -64,11 +64,6 @@ export function createPaymentService({ db, provider, webhookSecret, appUrl, jobs
       return { paymentId: row!.id, checkoutUrl: row!.checkoutUrl };
     },
 
-    /** The job's payments, newest first (the job page shows whether it is paid). */
-    async forJob(jobId: string) {
-      return db.select().from(payments).where(eq(payments.jobId, jobId)).orderBy(desc(payments.createdAt));
-    },
-
     /**
      * A provider event, verified against its signature header and the raw body it was computed on.
      * A forged, altered or stale (older than five minutes: a replay) event is refused; an event seen

@@ -67,6 +67,17 @@ describe('messages about a job', () => {
     expect(got[0]!.text).toContain(`${TEST_ORIGIN}/jobs/${job.id}`);
   });
 
+  it('an order with an unpriced line says its total covers the priced lines only', async () => {
+    const priced = await part(10, 12_500);
+    const unpriced = await makeStockPart(t.db, { listPriceCents: null });
+    const job = await order([{ sku: priced.sku, qty: 1 }, { sku: unpriced.sku, qty: 1 }]);
+    await mail.settled();
+    const [got] = (await inbox('ops@ironbark.test')).filter((m) => m.subject.includes(job.reference));
+    // $125.00 + 10 % GST = $137.50 (GST Act s 9-70, by hand); the unpriced line is not in it and the text says so.
+    expect(got!.text).toContain('Total inc GST of the priced lines: $137.50; the trade desk will price the other line.');
+    expect(got!.html).toContain('the trade desk will price the other line');
+  });
+
   it('reserving with a short line sends the backorders: which lines and how many', async () => {
     const scarce = await part(1);
     const plenty = await part(20);
