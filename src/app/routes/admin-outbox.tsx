@@ -1,4 +1,4 @@
-import { useDeferredValue, useMemo, useState } from 'react';
+import { useDeferredValue, useMemo } from 'react';
 import { Link } from 'react-router';
 import type { ColumnDef } from '@tanstack/react-table';
 import { MAIL_EVENT_LABELS, OUTBOX_PAGE_SIZE, type OutboxRow } from '@shared/contracts/mail.ts';
@@ -8,16 +8,17 @@ import { TextField } from '@/components/ui/field.tsx';
 import { Notice } from '@/components/ui/notice.tsx';
 import { Pager } from '@/components/ui/pager.tsx';
 import { paths } from '@/config/paths.ts';
-import { formatDate } from '@/lib/format.ts';
+import { formatDateTime } from '@/lib/format.ts';
+import { useUrlFilters } from '@/lib/use-url-filters.ts';
 import { useOutbox } from '@/features/mail/api/get-outbox.ts';
 import { MailStatusTag } from '@/features/mail/components/mail-status.tsx';
 
-const when = (iso: string) => `${formatDate(iso)} ${new Date(iso).toLocaleTimeString('en-AU', { hour: '2-digit', minute: '2-digit' })}`;
-
 /** Every message the app has written, newest first: what went to whom, and whether it arrived. */
 export function AdminOutboxRoute() {
-  const [to, setTo] = useState('');
-  const [page, setPage] = useState(1);
+  // In the address, so a message opened and closed again comes back to the same filtered page.
+  const filters = useUrlFilters();
+  const to = filters.get('to') ?? '';
+  const { page, setPage } = filters;
   const deferred = useDeferredValue(to.trim());
   const { data, error, isLoading } = useOutbox(deferred, page);
   const columns = useMemo<ColumnDef<OutboxRow>[]>(
@@ -35,7 +36,7 @@ export function AdminOutboxRoute() {
       },
       { accessorKey: 'to', header: 'To', enableSorting: false, meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num break-all text-xs">{c.getValue<string>()}</span> },
       { accessorKey: 'event', header: 'About', enableSorting: false, meta: { className: PHONE_HIDDEN }, cell: (c) => MAIL_EVENT_LABELS[c.row.original.event] },
-      { accessorKey: 'createdAt', header: 'Written', enableSorting: false, meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num whitespace-nowrap">{when(c.row.original.createdAt)}</span> },
+      { accessorKey: 'createdAt', header: 'Written', enableSorting: false, meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num whitespace-nowrap">{formatDateTime(c.row.original.createdAt)}</span> },
       { accessorKey: 'status', header: 'State', enableSorting: false, cell: (c) => <MailStatusTag status={c.row.original.status} /> },
     ],
     [],
@@ -48,10 +49,7 @@ export function AdminOutboxRoute() {
           type="search"
           placeholder="Part of an e-mail address"
           value={to}
-          onChange={(e) => {
-            setTo(e.target.value);
-            setPage(1);
-          }}
+          onChange={(e) => filters.set('to', e.target.value)}
         />
       </div>
       {error && <Notice tone="danger">{error.message}</Notice>}

@@ -5,6 +5,7 @@ import type { JobSummary } from '@shared/contracts/jobs.ts';
 import { DataTable, PHONE_HIDDEN, ROW_ACTION } from '@/components/ui/data-table.tsx';
 import { paths } from '@/config/paths.ts';
 import { JobStatusTag } from './job-status.tsx';
+import { formatDate } from '@/lib/format.ts';
 
 /** Jobs, newest first; a row opens the job. */
 export function JobsTable({ jobs, showCustomer }: { jobs: JobSummary[]; showCustomer: boolean }) {
@@ -41,7 +42,7 @@ export function JobsTable({ jobs, showCustomer }: { jobs: JobSummary[]; showCust
         meta: { align: 'right' },
         cell: (c) => (c.row.original.backordered ? <span className="num font-semibold text-danger">{c.row.original.backordered}</span> : <span className="num text-ink-soft">0</span>),
       },
-      { id: 'created', accessorKey: 'createdAt', header: 'Created', meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num whitespace-nowrap">{c.row.original.createdAt.slice(0, 10)}</span> },
+      { id: 'created', accessorKey: 'createdAt', header: 'Created', meta: { className: PHONE_HIDDEN }, cell: (c) => <span className="num whitespace-nowrap">{formatDate(c.row.original.createdAt)}</span> },
     ],
     [showCustomer],
   );
