@@ -380,16 +380,18 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
       const planIds = lines.length ? [] : d.plans.map((p) => p.id);
       if (!lines.length && !planIds.length) throw new ConflictError('This job has nothing to order again.');
       const base = d.job.reference.replace(/ \(again(?: \d+)?\)$/, '');
-      for (let n = 1; n <= 50; n++) {
+      // The first "(again n)" the company has not used: one read, then one create, whose own
+      // duplicate check still answers if another reorder took the same reference meanwhile.
+      const marked = (n: number) => {
         const mark = n === 1 ? ' (again)' : ` (again ${n})`;
-        const reference = base.slice(0, 40 - mark.length) + mark;
-        try {
-          return await service.create(actor, { companyId: d.company.id, reference, siteSuburb: d.job.siteSuburb ?? undefined, sitePostcode: d.job.sitePostcode ?? undefined, contact: d.job.contact ?? undefined, planIds, lines, reason: `Ordered again from ${d.job.reference}` });
-        } catch (e) {
-          if (!(e instanceof ConflictError)) throw e;
-        }
-      }
-      throw new ConflictError('Give the new job a reference of its own: this one has been ordered again many times.');
+        return base.slice(0, 40 - mark.length) + mark;
+      };
+      const taken = new Set(
+        (await db.select({ reference: jobs.reference }).from(jobs).where(and(eq(jobs.companyId, d.company.id), ilike(jobs.reference, `${likeLiteral(base.slice(0, 29))}%(again%`)))).map((r) => r.reference.toLowerCase()),
+      );
+      let n = 1;
+      while (taken.has(marked(n).toLowerCase())) n++;
+      return service.create(actor, { companyId: d.company.id, reference: marked(n), siteSuburb: d.job.siteSuburb ?? undefined, sitePostcode: d.job.sitePostcode ?? undefined, contact: d.job.contact ?? undefined, planIds, lines, reason: `Ordered again from ${d.job.reference}` });
     },
 
     /** A draft with its plans' lines copied in, so it can be priced (before a card payment). */
