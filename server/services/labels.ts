@@ -151,11 +151,8 @@ export function createLabelsService({ db, planner, publicUrl, now = () => new Da
       const pick = await visiblePick(db, actor, jobId);
       const { job } = pick;
       const plans = (await db.execute<{ plan_id: string }>(sql`select plan_id from job_plans where job_id = ${jobId} order by plan_id`)).rows;
-      const systems = [];
-      for (const { plan_id } of plans) {
-        const f = await planner.savedFigures(plan_id);
-        if (f) systems.push({ ...f, modules: f.stacks * f.modulesPerStack });
-      }
+      const figures = await Promise.all(plans.map(({ plan_id }) => planner.savedFigures(plan_id)));
+      const systems = figures.flatMap((f) => (f ? [{ ...f, modules: f.stacks * f.modulesPerStack }] : []));
       const issued = (
         await db.execute<{ sku: string; name: string; serial: string }>(sql`
           select p.sku, p.name, s.serial from part_serials s join parts p on p.id = s.part_id

@@ -161,6 +161,11 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
 
   async function plan(actor: Actor, input: StackPlanRequest) {
     authorize(actor, 'plans.create');
+    return workOut(input, await customerDiscountPct(db, companyScopeOf(actor)));
+  }
+
+  /** The plan itself, priced at list less `discountPct`; who may ask is the caller's business. */
+  async function workOut(input: StackPlanRequest, discountPct: number) {
     const loaded = await loadRange(input.rangeId);
     // Stock is read for every part the range can call for while the plan is worked out,
     // and a compatible inverter comes from the cached range: one database round trip per plan.
@@ -181,7 +186,6 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
       includeInverter: input.includeInverter,
     });
     if (!result.ok) throw new ValidationError(result.error.message, { code: result.error.code, ...result.error.details });
-    const discountPct = await customerDiscountPct(db, companyScopeOf(actor));
     const p = atCustomerPrices(result.plan, discountPct);
     return {
       ...p,
@@ -283,8 +287,7 @@ export function createPlannerService({ db, rangeCache = createTtlCache<LoadedRan
       const [row] = await db.select({ name: stackPlans.name, request: stackPlans.request }).from(stackPlans).where(eq(stackPlans.id, id));
       const request = row ? StackPlanRequestSchema.safeParse(row.request) : null;
       if (!row || !request?.success) return null;
-      const reader: Actor = { userId: 'system', name: 'Stackyard', email: 'system@stackyard.invalid', role: 'sales', companyId: null };
-      const p = await plan(reader, request.data).catch((e) => (e instanceof ValidationError ? null : Promise.reject(e)));
+      const p = await workOut(request.data, 0).catch((e) => (e instanceof ValidationError ? null : Promise.reject(e)));
       return p && { name: row.name, rangeName: p.rangeName, stacks: p.stacks, modulesPerStack: p.modulesPerStack, usableKwh: p.usableKwh, nominalVoltage: p.nominalVoltage, dvc: p.dvc };
     },
 
