@@ -2,7 +2,7 @@
 // id, pause and resume by anyone in the warehouse, and completion issuing the stock in one
 // transaction (ledger pick-issue movements, reservations consumed, serials attached, job ready).
 import type { MailService } from './mail.ts';
-import { pgCode, isUuid } from '../db/errors.ts';
+import { pgCode, pgConstraint, isUuid } from '../db/errors.ts';
 import { eq, sql } from 'drizzle-orm';
 import type { Db, DbOrTx, Tx } from '../db/client.ts';
 import { jobs, jobStatusHistory, partSerials, pickScans, pickSessions, reservations } from '../db/schema/index.ts';
@@ -248,7 +248,7 @@ export function createPickingService({ db, now = () => new Date(), mail }: Picki
      * unknown barcode) change nothing and say what was expected. A scan id seen before answers
      * as it did, without applying the scan again.
      */
-    async scan(actor: Actor, jobId: string, input: PickScanInput): Promise<PickScanResult> {
+    async scan(actor: Actor, jobId: string, input: PickScanInput, retried = false): Promise<PickScanResult> {
       authorize(actor, 'jobs.pick');
       await visible(actor, jobId);
       try {
@@ -322,8 +322,9 @@ export function createPickingService({ db, now = () => new Date(), mail }: Picki
           return { accepted: true, replay: false, message, line: lineView(line), progress: progress() };
         });
       } catch (e) {
-        // Two arrivals of one scan id at once: the unique key stopped the second; answer as a replay.
-        if (pgCode(e) === '23505') return this.scan(actor, jobId, input);
+        // Two arrivals of one scan id (or one serial) at once: the unique key stopped the second.
+        // Asked again, it finds the first one's row and answers as a replay or a refusal; once.
+        if (!retried && pgCode(e) === '23505' && ['pick_scans_job_scan', 'pick_scans_job_line_serial'].includes(pgConstraint(e) ?? '')) return this.scan(actor, jobId, input, true);
         throw e;
       }
     },
