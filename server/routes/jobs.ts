@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { IdParamsSchema as IdParams } from '@shared/contracts/common.ts';
-import { CreateJobSchema, JobListQuerySchema, JobListSchema, JobSchema } from '@shared/contracts/jobs.ts';
+import { CreateJobSchema, DispatchInputSchema, JobListQuerySchema, JobListSchema, JobSchema } from '@shared/contracts/jobs.ts';
 import type { Api } from '../http/route.ts';
 import type { AppDeps } from '../deps.ts';
 import { presentJob, presentJobSummary } from '../presenters/jobs.ts';
@@ -48,11 +48,13 @@ export function jobRoutes(api: Api, { jobs }: Pick<AppDeps, 'jobs'>) {
     { verb: 'reserve', ability: 'jobs.reserve', summary: 'Reserve stock for every line in one transaction (a draft is held as a quote); what is short is backordered' },
     { verb: 'release', ability: 'jobs.reserve', summary: 'Release every unit the job holds and drop its backorders' },
     { verb: 'cancel', ability: 'jobs.cancel', summary: 'Cancel the job and release its stock' },
-    { verb: 'dispatch', ability: 'jobs.handover', summary: 'A ready job has left with a carrier (the customer is told)' },
     { verb: 'collect', ability: 'jobs.handover', summary: 'A ready job was collected at the counter' },
     { verb: 'close', ability: 'jobs.handover', summary: 'Close a dispatched or collected job' },
     { verb: 'gather', ability: 'stock.transfer', summary: 'Move the units the job holds in other warehouses to its preferred warehouse (transfer out and in; the units stay the job’s)' },
   ] as const;
+  api.route({ method: 'post', path: '/jobs/:id/dispatch', summary: 'A ready job has left with a carrier, optionally named with its tracking reference (the customer is told)', tag: 'jobs', ability: 'jobs.handover', params: IdParams, body: DispatchInputSchema, response: JobResponse }, async ({ actor, params, body }) => ({
+    data: presentJob(await jobs.dispatch(actor, params.id, body)),
+  }));
   for (const a of actions) {
     api.route({ method: 'post', path: `/jobs/:id/${a.verb}`, summary: a.summary, tag: 'jobs', ability: a.ability, params: IdParams, response: JobResponse }, async ({ actor, params }) => ({
       data: presentJob(await jobs[a.verb](actor, params.id)),

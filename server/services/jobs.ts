@@ -7,7 +7,7 @@ import { authorize, type Actor } from '../policies/actor.ts';
 import { assertCanSeeCompany, companyForNew, companyScopeOf, isCompanyBound } from '../policies/company-scope.ts';
 import { can } from '@shared/roles.ts';
 import { ConflictError, NotFoundError, ValidationError } from '../errors.ts';
-import type { CreateJobInput, JobListQuery, JobStatus } from '@shared/contracts/jobs.ts';
+import type { CreateJobInput, DispatchInput, JobListQuery, JobStatus } from '@shared/contracts/jobs.ts';
 import type { PlannerService } from './planner.ts';
 import { createReservationGroups } from './reservation-groups.ts';
 import { heldByLine, inStockTransaction, newReference, partsBySku, releaseJobHolds, warehouseByCode } from './ledger.ts';
@@ -195,7 +195,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
   }
 
   /** One step after picking, checked again under the job's lock; the customer hears of a dispatch. */
-  async function handOver(actor: Actor, id: string, from: JobStatus[], to: JobStatus) {
+  async function handOver(actor: Actor, id: string, from: JobStatus[], to: JobStatus, sent: DispatchInput = {}) {
     authorize(actor, 'jobs.handover');
     const job = await visibleJob(actor, id);
     const refuse = (status: JobStatus) => new ConflictError(`This job is ${status}; only a job that is ${from.join(' or ')} can be marked ${to}.`);
@@ -203,8 +203,11 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     await db.transaction(async (tx) => {
       const [locked] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
       if (!from.includes(locked!.status)) throw refuse(locked!.status);
-      await record(tx, id, to, actor.userId);
-      if (to === 'dispatched') await mail?.jobStatusChanged(tx, id, 'dispatched');
+      const carrier = sent.carrier || null;
+      const trackingRef = sent.trackingRef || null;
+      const note = carrier || trackingRef ? [carrier && `Sent with ${carrier}`, trackingRef && `tracking ${trackingRef}`].filter(Boolean).join(', ') : null;
+      await record(tx, id, to, actor.userId, note);
+      if (to === 'dispatched') await mail?.jobStatusChanged(tx, id, 'dispatched', { carrier, trackingRef });
     });
     return detail(actor, id);
   }
@@ -345,7 +348,7 @@ export function createJobService({ db, planner, now = () => new Date(), quoteHol
     },
 
     /** A picked kit leaves: sent with a carrier (the customer hears of it) or collected at the counter. */
-    dispatch: (actor: Actor, id: string) => handOver(actor, id, ['ready'], 'dispatched'),
+    dispatch: (actor: Actor, id: string, sent: DispatchInput = {}) => handOver(actor, id, ['ready'], 'dispatched', sent),
     collect: (actor: Actor, id: string) => handOver(actor, id, ['ready'], 'collected'),
     /** The job is done: nothing more is expected of it. */
     close: (actor: Actor, id: string) => handOver(actor, id, ['dispatched', 'collected'], 'closed'),

@@ -32,6 +32,15 @@ export const CreateJobSchema = z.strictObject({
 });
 export type CreateJobInput = z.infer<typeof CreateJobSchema>;
 
+/** Who took a dispatched kit, and its consignment number: both optional, both told to the customer. */
+export const DispatchInputSchema = z
+  .strictObject({
+    carrier: text().trim().max(60, 'Keep the carrier to 60 characters.').optional(),
+    trackingRef: text().trim().max(60, 'Keep the tracking reference to 60 characters.').optional(),
+  })
+  .default({});
+export type DispatchInput = z.infer<typeof DispatchInputSchema>;
+
 export const JobListQuerySchema = z.object({
   status: z.enum(JOB_STATUSES).optional(),
   companyId: z.uuid().optional(),

@@ -179,11 +179,19 @@ describe('completing the pick', () => {
     const early = await post(sales, `/api/jobs/${k.id}/close`);
     expect(early.status).toBe(409);
     expect(early.body.error.message).toMatch(/only a job that is dispatched or collected can be marked closed/);
-    const sent = await post(warehouse, `/api/jobs/${k.id}/dispatch`);
+    const tooLong = await post(warehouse, `/api/jobs/${k.id}/dispatch`, { carrier: 'x'.repeat(61) });
+    expect(tooLong.status).toBe(400);
+    expect(tooLong.body.error.message).toMatch(/60 characters/);
+    expect((await sales.get(`/api/jobs/${k.id}`)).body.data.status).toBe('ready'); // refused: nothing changed
+    const sent = await post(warehouse, `/api/jobs/${k.id}/dispatch`, { carrier: 'Tasman Freight', trackingRef: 'TF-20931' });
     expect(sent.status, sent.text).toBe(200);
     expect(sent.body.data.status).toBe('dispatched');
     expect(sent.body.data.abilities).toMatchObject({ dispatch: false, collect: false, close: true });
+    expect(sent.body.data.history.at(-1)).toMatchObject({ status: 'dispatched', note: 'Sent with Tasman Freight, tracking TF-20931' });
     expect(await mails()).toContain('dispatched');
+    const [told] = (await t.db.execute<{ text: string }>(sql`select text from mail_outbox where refs->>'jobId' = ${k.id} and event = 'dispatched'`)).rows;
+    expect(told!.text).toContain('Tasman Freight');
+    expect(told!.text).toContain('TF-20931');
     expect((await post(warehouse, `/api/jobs/${k.id}/collect`)).status).toBe(409);
     const closed = await post(sales, `/api/jobs/${k.id}/close`);
     expect(closed.body.data.status).toBe('closed');
